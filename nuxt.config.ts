@@ -1,0 +1,55 @@
+// Brinkwater — Nuxt configuration. Runtime settings come from NUXT_* environment variables.
+export default defineNuxtConfig({
+  compatibilityDate: '2026-05-01',
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  devtools: { enabled: false },
+  telemetry: false,
+  tailwindcss: { cssPath: '~/assets/css/main.css' },
+  app: {
+    head: {
+      title: 'Brinkwater',
+      htmlAttrs: { lang: 'en' },
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1' },
+        { name: 'description', content: 'Brinkwater — tabletop exercises for asteroid ocean-impact response.' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  runtimeConfig: {
+    // SQLite file; NUXT_DB_PATH overrides.
+    dbPath: '.data/brinkwater.sqlite',
+    migrationsDir: 'drizzle',
+    // Public address used in e-mailed links; NUXT_APP_URL overrides.
+    appUrl: 'http://localhost:3000',
+    // Seed the demo accounts, scenario and exercise at start (NUXT_SEED_DEMO=1).
+    seedDemo: false,
+    demoPassword: 'brinkwater-demo',
+    smtp: {
+      // Empty host: mail goes to the built-in fake SMTP server on 127.0.0.1.
+      host: '',
+      port: 587,
+      secure: false,
+      user: '',
+      pass: '',
+      from: 'Brinkwater <no-reply@brinkwater.test>',
+    },
+    fakeSmtp: {
+      // The local catcher runs whenever no real SMTP host is configured.
+      port: 2525,
+    },
+    session: {
+      name: 'brinkwater-session',
+      maxAge: 60 * 60 * 12,
+      cookie: { sameSite: 'lax', httpOnly: true },
+    },
+  },
+  nitro: {
+    experimental: { websocket: true },
+  },
+  vite: {
+    optimizeDeps: { include: ['socket.io-client', 'dayjs'] },
+  },
+  typescript: { strict: true },
+  eslint: { config: { stylistic: false } },
+})

@@ -1,0 +1,18 @@
+import { eq } from 'drizzle-orm'
+import { forgotSchema } from '../../../shared/schemas/auth'
+
+// Always the same answer, so the form does not reveal which addresses have accounts.
+export default defineEventHandler(async (event) => {
+  const { email } = await readValid(event, forgotSchema)
+  const user = useDB().select().from(schema.users).where(eq(schema.users.email, email)).get()
+  if (user && !user.disabled) {
+    const token = issueAccountToken(user.id, 'reset')
+    await sendMail({
+      to: user.email,
+      subject: 'Brinkwater: reset your password',
+      text: `Someone asked to reset the password of your Brinkwater account.\n\nSet a new password (the link works once, for one hour):\n${appLink(`/password/${token}`)}\n\nIf it was not you, ignore this message.`,
+    })
+  }
+  setResponseStatus(event, 202)
+  return { ok: true }
+})

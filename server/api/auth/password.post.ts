@@ -1,0 +1,14 @@
+import { eq } from 'drizzle-orm'
+import { setPasswordSchema } from '../../../shared/schemas/auth'
+
+// Completes an invitation or a reset: the token is spent, the password set, the person signed in.
+export default defineEventHandler(async (event) => {
+  const { token, password } = await readValid(event, setPasswordSchema)
+  const { userId } = consumeAccountToken(token)
+  const passwordHash = await hashPassword(password)
+  const user = useDB().update(schema.users).set({ passwordHash }).where(eq(schema.users.id, userId)).returning().get()
+  if (!user || user.disabled) throw createError({ statusCode: 400, message: 'This link is invalid or has expired. Ask for a new one.' })
+  await clearUserSession(event)
+  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
+  return { user: sessionUser(user) }
+})

@@ -1,0 +1,32 @@
+import { SMTPServer } from 'smtp-server'
+import { simpleParser } from 'mailparser'
+import type { AddressObject } from 'mailparser'
+
+// The development SMTP catcher: runs only when no real relay is configured, on 127.0.0.1.
+export default defineNitroPlugin((nitroApp) => {
+  if (!usingFakeSmtp()) return
+  const port = Number(useRuntimeConfig().fakeSmtp.port)
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['STARTTLS'],
+    size: 25 * 1024 * 1024,
+    onData(stream, _session, callback) {
+      simpleParser(stream).then((mail) => {
+        const addresses = (a: AddressObject | AddressObject[] | undefined) =>
+          (Array.isArray(a) ? a : a ? [a] : []).map(x => x.text).join(', ')
+        useDB().insert(schema.caughtMail).values({
+          from: addresses(mail.from),
+          to: addresses(mail.to),
+          subject: mail.subject ?? '',
+          text: mail.text ?? '',
+          html: typeof mail.html === 'string' ? mail.html : null,
+          attachments: mail.attachments.map(a => ({ filename: a.filename ?? 'attachment', contentType: a.contentType, size: a.size })),
+        }).run()
+        callback()
+      }, (err: Error) => callback(err))
+    },
+  })
+  server.on('error', err => console.error('[fake-smtp]', err.message))
+  server.listen(port, '127.0.0.1')
+  nitroApp.hooks.hook('close', () => new Promise<void>(resolve => server.close(() => resolve())))
+})

@@ -1,0 +1,44 @@
+import { mkdirSync } from 'node:fs'
+import { dirname, resolve } from 'node:path'
+import Database from 'better-sqlite3'
+import { drizzle } from 'drizzle-orm/better-sqlite3'
+import type { BetterSQLite3Database } from 'drizzle-orm/better-sqlite3'
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator'
+import * as schema from '../db/schema'
+
+export { schema }
+export type DB = BetterSQLite3Database<typeof schema>
+
+let sqlite: Database.Database | undefined
+let db: DB | undefined
+
+/**
+ * The one SQLite connection of this process (better-sqlite3, synchronous).
+ * WAL lets readers run beside the writer; synchronous=NORMAL in WAL keeps every committed
+ * transaction across a process crash (only an OS crash or power loss can drop the last ones).
+ */
+export function useDB(): DB {
+  if (db) return db
+  const config = useRuntimeConfig()
+  const file = resolve(process.env.NUXT_DB_PATH || config.dbPath)
+  mkdirSync(dirname(file), { recursive: true })
+  sqlite = new Database(file)
+  sqlite.pragma('journal_mode = WAL')
+  sqlite.pragma('synchronous = NORMAL')
+  sqlite.pragma('foreign_keys = ON')
+  sqlite.pragma('busy_timeout = 5000')
+  db = drizzle(sqlite, { schema })
+  return db
+}
+
+/** The raw connection, for transactions and the online backup. */
+export function useSqlite(): Database.Database {
+  useDB()
+  return sqlite!
+}
+
+/** Applies the drizzle-kit migrations in `drizzle/` (or NUXT_MIGRATIONS_DIR). */
+export function runMigrations(): void {
+  const config = useRuntimeConfig()
+  migrate(useDB(), { migrationsFolder: resolve(process.env.NUXT_MIGRATIONS_DIR || config.migrationsDir) })
+}

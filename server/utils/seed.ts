@@ -1,0 +1,40 @@
+import { and, eq } from 'drizzle-orm'
+import type { ExerciseRole } from '../../shared/utils/roles'
+
+export const DEMO_ACCOUNTS: Array<{ email: string; name: string; systemRole: 'admin' | 'member'; role?: ExerciseRole; teamKey?: string }> = [
+  { email: 'admin@brinkwater.test', name: 'Avery Holm (admin)', systemRole: 'admin' },
+  { email: 'facilitator@brinkwater.test', name: 'Mira Castell', systemRole: 'member', role: 'facilitator' },
+  { email: 'science@brinkwater.test', name: 'Tomas Reyl', systemRole: 'member', role: 'player', teamKey: 'science' },
+  { email: 'civil@brinkwater.test', name: 'Ines Varga', systemRole: 'member', role: 'player', teamKey: 'civil' },
+  { email: 'comms@brinkwater.test', name: 'Noor Adeyemi-Lind', systemRole: 'member', role: 'player', teamKey: 'comms' },
+  { email: 'evaluator@brinkwater.test', name: 'Jonas Petrel', systemRole: 'member', role: 'evaluator' },
+  { email: 'analyst@brinkwater.test', name: 'Sela Brandt', systemRole: 'member', role: 'analyst' },
+]
+
+export const DEMO_EXERCISE_TITLE = 'Demo drill — Gannet ocean impact off the Western Shore'
+
+/** Creates the demo accounts and the demo exercise; running it again changes nothing. */
+export async function seedDemo(): Promise<void> {
+  const db = useDB()
+  const password = process.env.DEMO_PASSWORD || useRuntimeConfig().demoPassword
+  const hash = await hashPassword(password)
+  const ids = new Map<string, string>()
+  for (const a of DEMO_ACCOUNTS) {
+    const found = db.select().from(schema.users).where(eq(schema.users.email, a.email)).get()
+    const row = found ?? db.insert(schema.users).values({ email: a.email, name: a.name, systemRole: a.systemRole, passwordHash: hash }).returning().get()
+    ids.set(a.email, row.id)
+  }
+  let exercise = db.select().from(schema.exercises).where(eq(schema.exercises.title, DEMO_EXERCISE_TITLE)).get()
+  exercise ??= db.insert(schema.exercises).values({
+    title: DEMO_EXERCISE_TITLE,
+    description: 'A fictional object is found on course for the sea off an invented stretch of coast. Ready to start.',
+    createdBy: ids.get('facilitator@brinkwater.test'),
+  }).returning().get()
+  for (const a of DEMO_ACCOUNTS) {
+    if (!a.role) continue
+    const userId = ids.get(a.email)!
+    const has = db.select().from(schema.memberships)
+      .where(and(eq(schema.memberships.exerciseId, exercise.id), eq(schema.memberships.userId, userId))).get()
+    if (!has) db.insert(schema.memberships).values({ exerciseId: exercise.id, userId, role: a.role, teamKey: a.teamKey ?? null }).run()
+  }
+}

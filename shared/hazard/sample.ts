@@ -1,0 +1,174 @@
+import type { OrbitSolution } from './schema'
+import { HazardRng, sampleAlbedoWright2016, sampleShoemakerAngleDeg, CLASS_ALBEDO, CLASS_DENSITY, MIN_ALBEDO, DENSITY_RANGE_KGM3 } from './sampling'
+import { entryInto, newEntryScratch, strengthFromDensityPa } from './entry'
+import { corridorGeometry, corridorPointInto } from './corridor'
+import { isLand } from './land'
+import { machOnsetScaledM, BLAST } from './blast'
+import { fireballRadiusM, THERMAL } from './thermal'
+import { seismicMagnitude } from './seismic'
+import { cavityDiameterSI, impactWaveSpeedMS, OCEAN } from './ocean'
+import { SIZE_LAW_KM } from './size'
+import { DEG, J_PER_KT, J_PER_MT, WATER_DENSITY_KGM3 } from './units'
+
+/** Bit flags of a realisation: impact point at sea, airburst, tsunami (sea and not an airburst), cavity reaches the sea floor. */
+export const FLAG_SEA = 1
+export const FLAG_AIRBURST = 2
+export const FLAG_TSUNAMI = 4
+export const FLAG_SEAFLOOR = 8
+
+/** Water depth assumed for a sea impact when the solution gives 0 m (a shelf sea; common practice, no source). */
+export const ASSUMED_DEPTH_M = 100
+const LN10_5 = Math.LN10 / 5
+const LN_1000 = Math.log(1000)
+/** Fireball radius per kt^(1/3): 0.002 (J_PER_KT)^(1/3) m (Collins 2005). */
+const FIREBALL_PER_CBRT_KT = fireballRadiusM(J_PER_KT)
+
+/**
+ * Layout of the packed record that the site loop reads for each realisation (one interleaved
+ * Float64Array, read sequentially: far fewer cache misses than one column per field).
+ */
+export const REC = {
+  /** Unit vector of the impact point. */
+  x: 0, y: 1, z: 2,
+  /** Blast: E_kt^(1/3) (0: no blast), its log, scaled burst height z1 (0: surface), Mach onset range
+   * r_m1 E^(1/3) in metres, regular-reflection p0 = 3.14e11 z1^-2.6 and decay 34.87 z1^-1.73 / E^(1/3)
+   * per metre (Collins 2005): unscaled, so the site loop needs no division. */
+  s: 3, lnS: 4, z1: 5, rm: 6, p0: 7, beta: 8,
+  /** Thermal: eta E / (2 pi) (0: no fireball), burst altitude m, fireball radius m, E_Mt^(-1/6). */
+  thK: 9, zb: 10, rf: 11, burn: 12,
+  /** Seismic source magnitude (NaN: nothing reaches the ground). */
+  mag: 13,
+  /** Tsunami (0 when none): rim amplitude m, cavity radius m, amplitude x radius m², its log, and
+   * 1/(60 c) of the dominant wave (min/m). */
+  rimA: 14, rimR: 15, AR: 16, lnAR: 17, invC60: 18,
+  size: 19,
+} as const
+
+/** The realisations: summary columns plus the packed site-loop records. */
+export interface SampleSet {
+  n: number
+  seaDepthM: number
+  diameterM: Float64Array; massKg: Float64Array; energyMt: Float64Array; surfaceEnergyMt: Float64Array
+  burstAltM: Float64Array; cavityM: Float64Array; flags: Uint8Array
+  lon: Float64Array; lat: Float64Array
+  rec: Float64Array
+  counts: { highBurst: number; seafloor: number; sea: number }
+}
+
+type StrengthModel = 'density' | 'log-uniform'
+
+/** Working columns for up to `capacity` realisations. */
+export function allocSamples(capacity: number): SampleSet {
+  const f64 = () => new Float64Array(capacity)
+  return {
+    n: 0, seaDepthM: 0,
+    diameterM: f64(), massKg: f64(), energyMt: f64(), surfaceEnergyMt: f64(), burstAltM: f64(), cavityM: f64(),
+    flags: new Uint8Array(capacity), lon: f64(), lat: f64(), rec: new Float64Array(REC.size * capacity),
+    counts: { highBurst: 0, seafloor: 0, sea: 0 },
+  }
+}
+
+/**
+ * Draws n realisations from an orbit solution (hazard-model.md §6) and runs sections 1–4 for each:
+ * size, entry, blast scaling, fireball, seismic source and ocean cavity. Fills S (capacity >= n; every
+ * field of every realisation is written, so S may be reused).
+ */
+export function drawSamples(solution: OrbitSolution, n: number, seed: number, strengthModel: StrengthModel, S: SampleSet = allocSamples(n)): SampleSet {
+  S.n = n
+  S.seaDepthM = solution.waterDepthM > 0 ? solution.waterDepthM : ASSUMED_DEPTH_M
+  const counts = { highBurst: 0, seafloor: 0, sea: 0 }
+  S.counts = counts
+  const rng = new HazardRng(seed)
+  const scr = newEntryScratch()
+  const c = solution.corridor
+  const geo = corridorGeometry(c.path, c.nominal)
+  const cls = solution.taxonomicClass
+  const { H: H0, sigma: sH } = solution.magnitude
+  const v = solution.entrySpeedKmS
+  const h = S.seaDepthM
+  const R = S.rec
+  for (let i = 0; i < n; i++) {
+    const H = H0 + sH * rng.normal()
+    let p: number
+    if (solution.albedo) p = solution.albedo.min + (solution.albedo.max - solution.albedo.min) * rng.uniform()
+    else if (cls === 'unknown') p = sampleAlbedoWright2016(rng)
+    else p = CLASS_ALBEDO[cls].median * Math.exp(CLASS_ALBEDO[cls].sigmaLn * rng.normal())
+    if (p < MIN_ALBEDO) p = MIN_ALBEDO
+    const D = SIZE_LAW_KM * 1000 / Math.sqrt(p) * Math.exp(-H * LN10_5)
+    // Unknown class: dark bodies taken as carbonaceous, bright as stony (common practice, no source).
+    const dens = solution.densityKgM3 ?? CLASS_DENSITY[cls === 'unknown' ? (p < 0.1 ? 'C' : 'S') : cls]
+    const rho = rng.truncatedNormal(dens.mean, dens.sigma, DENSITY_RANGE_KGM3[0], DENSITY_RANGE_KGM3[1])
+    const Y = strengthModel === 'density' ? strengthFromDensityPa(rho) : Math.exp(Math.LN10 * (5 + 2 * rng.uniform()))
+    const v0 = 1000 * rng.truncatedNormal(v.mean, v.sigma, 11.2, 72)
+    const a = solution.entryAngleDeg
+    const theta = (a ? rng.truncatedNormal(a.mean, a.sigma, 5, 90) : sampleShoemakerAngleDeg(rng)) * DEG
+    entryInto(scr, D, rho, v0, theta, Y)
+    const o = REC.size * i
+    corridorPointInto(geo, geo.nominalAlongM + c.alongTrackSigmaKm * 1000 * rng.normal(), (2 * rng.uniform() - 1) * c.halfWidthKm * 1000, R, o)
+    const x = R[o]!, y = R[o + 1]!, z = R[o + 2]!
+    const lon = Math.atan2(y, x) / DEG, lat = Math.asin(Math.max(-1, Math.min(1, z))) / DEG
+    S.lon[i] = lon
+    S.lat[i] = lat
+    const sea = !isLand(lon, lat)
+    const air = scr.airburst
+    let flags = (sea ? FLAG_SEA : 0) | (air ? FLAG_AIRBURST : 0)
+    S.diameterM[i] = D
+    S.massKg[i] = scr.massKg
+    S.energyMt[i] = scr.energyJ / J_PER_MT
+    S.surfaceEnergyMt[i] = scr.energySurfaceJ / J_PER_MT
+    const zb = air ? scr.burstAltitudeM : 0
+    S.burstAltM[i] = zb
+    // Blast energy: the airburst energy, or for a surface impact the larger of the energy lost in the
+    // air and the impact energy (as the EIEP program does).
+    const eBlast = air ? scr.energyAirJ : Math.max(scr.energyAirJ, scr.energySurfaceJ)
+    const s = Math.cbrt(eBlast / J_PER_KT)
+    const lnS = s > 0 ? Math.log(s) : 0
+    const z1 = air && s > 0 ? zb / s : 0
+    R[o + REC.s] = s
+    R[o + REC.lnS] = lnS
+    R[o + REC.z1] = z1
+    if (z1 > 0) {
+      const lz = Math.log(z1)
+      R[o + REC.rm] = machOnsetScaledM(z1) * s
+      R[o + REC.p0] = 3.14e11 * Math.exp(-2.6 * lz)
+      R[o + REC.beta] = 34.87 * Math.exp(-1.73 * lz) / s
+    } else {
+      R[o + REC.rm] = 0
+      R[o + REC.p0] = 0
+      R[o + REC.beta] = 0
+    }
+    if (air && z1 > BLAST.highBurstScaledM) counts.highBurst++
+    // Fireball: the energy at the burst or at the surface, only above 15 km/s (Collins 2005; EIEP).
+    const eTh = air ? scr.energyAirJ : scr.energySurfaceJ
+    const fire = scr.finalSpeedMS >= THERMAL.minSpeedKmS * 1000 && eTh > 0
+    R[o + REC.thK] = fire ? THERMAL.luminousEfficiency * eTh / (2 * Math.PI) : 0
+    R[o + REC.zb] = zb
+    // When the fireball and blast energies are the same (the usual case), reuse E_kt^(1/3) and its log.
+    const same = eTh === eBlast
+    R[o + REC.rf] = fire ? (same ? FIREBALL_PER_CBRT_KT * s : fireballRadiusM(eTh)) : 0
+    R[o + REC.burn] = fire ? Math.exp(-(same ? 3 * lnS - LN_1000 : Math.log(eTh / J_PER_MT)) / 6) : 0
+    let eGround = air ? 0 : scr.energySurfaceJ
+    if (sea) counts.sea++
+    let dtc = 0, rimA = 0, waveC = 0
+    if (sea && !air) {
+      const sinT = Math.sin(theta)
+      dtc = cavityDiameterSI(D, rho, scr.finalSpeedMS, sinT)
+      flags |= FLAG_TSUNAMI
+      rimA = Math.min(OCEAN.rimWaveFactor * dtc, h)
+      waveC = impactWaveSpeedMS(dtc, h)
+      // Transient cavity depth D/2.828 (EIEP) deeper than the sea: the cavity reaches the sea floor.
+      if (dtc / 2.828 > h) { flags |= FLAG_SEAFLOOR; counts.seafloor++ }
+      const vsf = scr.finalSpeedMS * Math.exp(-3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient * h / (2 * rho * D * sinT))
+      eGround = 0.5 * scr.massKg * vsf * vsf
+    }
+    S.cavityM[i] = dtc
+    R[o + REC.rimA] = rimA
+    R[o + REC.rimR] = dtc / 2
+    R[o + REC.AR] = rimA * dtc / 2
+    R[o + REC.lnAR] = rimA > 0 ? Math.log(rimA * dtc / 2) : 0
+    R[o + REC.invC60] = waveC > 0 ? 1 / (60 * waveC) : 0
+    R[o + REC.mag] = eGround > 0 ? seismicMagnitude(eGround) : NaN
+    S.flags[i] = flags
+  }
+  return S
+}

@@ -1,0 +1,68 @@
+import { z } from 'zod'
+
+/** A [longitude, latitude] pair in degrees (WGS84). */
+export const lonLatSchema = z.tuple([
+  z.number().min(-180).max(180),
+  z.number().min(-90).max(90),
+])
+export type LonLat = z.infer<typeof lonLatSchema>
+
+/** Taxonomic class of the impactor; `unknown` selects the albedo mixture of Wright et al. 2016. */
+export const taxonomicClassSchema = z.enum(['S', 'C', 'M', 'Q', 'V', 'unknown'])
+export type TaxonomicClass = z.infer<typeof taxonomicClassSchema>
+
+const meanSigma = (min: number, max: number, sigmaMax: number) => z.object({
+  mean: z.number().min(min).max(max),
+  sigma: z.number().min(0).max(sigmaMax),
+})
+
+/**
+ * What is known of the impactor at one scenario time: an orbit solution.
+ * Units are in the field names; angles from the horizontal (90 = vertical).
+ */
+export const orbitSolutionSchema = z.object({
+  /** Solution epoch (ISO 8601): when this estimate was made, in scenario time. */
+  epoch: z.iso.datetime({ offset: true }),
+  /** Nominal impact time (ISO 8601). */
+  impactTime: z.iso.datetime({ offset: true }),
+  /** Impact probability, 0..1. */
+  impactProbability: z.number().min(0).max(1),
+  /** Absolute magnitude H and its 1-sigma. */
+  magnitude: z.object({ H: z.number().min(10).max(35), sigma: z.number().min(0).max(3) }),
+  /** Geometric albedo range (uniform between min and max); overrides the class albedo. */
+  albedo: z.object({ min: z.number().gt(0).max(1), max: z.number().gt(0).max(1) })
+    .refine(a => a.min <= a.max, { message: 'albedo.min must not exceed albedo.max' })
+    .optional(),
+  taxonomicClass: taxonomicClassSchema.default('unknown'),
+  /** Bulk density mean and 1-sigma in kg/m³; absent: from the class. */
+  densityKgM3: meanSigma(500, 8000, 3000).optional(),
+  /** Entry speed at the top of the atmosphere, km/s. */
+  entrySpeedKmS: meanSigma(11.2, 72, 20),
+  /** Entry angle from the horizontal, degrees; absent: the sin 2θ law. */
+  entryAngleDeg: meanSigma(5, 90, 45).optional(),
+  /** The risk corridor: ground track, cross-track half-width, nominal point, along-track spread. */
+  corridor: z.object({
+    path: z.array(lonLatSchema).min(2),
+    halfWidthKm: z.number().min(0).max(5000),
+    nominal: lonLatSchema,
+    alongTrackSigmaKm: z.number().min(0).max(20000),
+  }),
+  /** Water depth at the nominal impact point, metres (0 on land). */
+  waterDepthM: z.number().min(0).max(11000),
+})
+export type OrbitSolution = z.infer<typeof orbitSolutionSchema>
+export type OrbitSolutionInput = z.input<typeof orbitSolutionSchema>
+
+/** A place of interest: a coastal or inland town, a port, a facility. */
+export const siteSchema = z.object({
+  id: z.string().regex(/^[a-z0-9][a-z0-9-]{0,62}$/, 'lower-case letters, digits and dashes'),
+  name: z.string().min(1).max(120),
+  lon: z.number().min(-180).max(180),
+  lat: z.number().min(-90).max(90),
+  population: z.number().int().min(0).max(50_000_000),
+  /** Water depth offshore of the site where the wave is measured, metres. */
+  offshoreDepthM: z.number().min(1).max(11000).optional(),
+  /** Beach slope, degrees from the horizontal. */
+  beachSlopeDeg: z.number().gt(0).max(45).optional(),
+})
+export type Site = z.infer<typeof siteSchema>

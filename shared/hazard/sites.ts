@@ -1,0 +1,199 @@
+import type { Site } from './schema'
+import { THRESHOLDS, type SiteAssessment, type ThresholdKey } from './types'
+import type { SampleSet } from './sample'
+import { FLAG_TSUNAMI, REC } from './sample'
+import { peakWindMS, BLAST } from './blast'
+import { visibleFraction } from './thermal'
+import { effectiveMagnitude } from './seismic'
+import { OCEAN, breakingLimit, longWaveSpeedMS } from './ocean'
+import { orderStats, toPercentiles } from './stats'
+import { DEG, EARTH_RADIUS_M } from './units'
+
+const LN_RX = Math.log(BLAST.crossoverRangeM)
+const PXRX4 = BLAST.crossoverPressurePa * BLAST.crossoverRangeM / 4
+
+/** Overpressure (Pa) at which the peak wind reaches u (inverse of `peakWindMS`, by bisection). */
+function overpressureForWindPa(u: number): number {
+  let a = 0, b = 1e7
+  for (let k = 0; k < 80; k++) { const m = 0.5 * (a + b); if (peakWindMS(m) < u) a = m; else b = m }
+  return b
+}
+
+const WIND_AS_PRESSURE = new Map<number, number>()
+function windThresholdPa(u: number): number {
+  let p = WIND_AS_PRESSURE.get(u)
+  if (p === undefined) { p = overpressureForWindPa(u); WIND_AS_PRESSURE.set(u, p) }
+  return p
+}
+
+/** Scratch columns reused from site to site. */
+export interface SiteScratch { dist: Float64Array; op: Float64Array; th: Float64Array; mag: Float64Array; amp: Float64Array; run: Float64Array; t1: Float64Array; t2: Float64Array; os: Float64Array }
+/** Per-site working columns for up to n realisations. */
+export function newSiteScratch(n: number): SiteScratch {
+  // Columns may be longer than the sample count (reused); only the first n entries are read.
+  const f = () => new Float64Array(n)
+  return { dist: f(), op: f(), th: f(), mag: f(), amp: f(), run: f(), t1: f(), t2: f(), os: new Float64Array(9) }
+}
+
+/** A site's assessment plus what the warnings need: share of tsunami realisations that break, and whether the offshore depth is in 1–8000 m. */
+export interface SiteResult { assessment: SiteAssessment; breakingFraction: number; depthInRange: boolean }
+
+/**
+ * Evaluates one site over every realisation: great-circle distance, overpressure (Collins 2005), wind,
+ * thermal exposure, effective seismic magnitude, offshore tsunami amplitude (rim wave, Green's law,
+ * breaking cap), earliest long-wave arrival and run-up (Synolakis 1987), and the share of realisations
+ * that exceed each threshold of THRESHOLDS. All probabilities are conditional on impact.
+ */
+export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResult {
+  const n = S.n
+  const cl = Math.cos(site.lat * DEG)
+  const sx = cl * Math.cos(site.lon * DEG), sy = cl * Math.sin(site.lon * DEG), sz = Math.sin(site.lat * DEG)
+  // A site without an offshore depth is inland: no tsunami figures for it.
+  const coastal = site.offshoreDepthM !== undefined
+  const d2 = site.offshoreDepthM ?? 1
+  const slope = site.beachSlopeDeg ?? OCEAN.defaultBeachSlopeDeg
+  const cot = 1 / Math.tan(slope * DEG)
+  const sqrtCot = Math.sqrt(cot)
+  const limit = breakingLimit(cot)
+  const green = Math.pow(S.seaDepthM / d2, 0.25)
+  const cap = OCEAN.breakingIndex * d2
+  const cLong = longWaveSpeedMS(S.seaDepthM)
+  // Thresholds by kind, ascending, so each realisation counts the levels it passes with an early exit.
+  // Wind thresholds become overpressures (the wind law is monotone).
+  const levels = (k: 'p' | 'th' | 'run') => THRESHOLDS
+    .map((t, idx) => ({ idx, v: t.kind === 'wind' ? windThresholdPa(t.value) : t.value, k: t.kind === 'thermal' ? 'th' : t.kind === 'runUp' ? 'run' : 'p' }))
+    .filter((t) => t.k === k).sort((a, b) => a.v - b.v)
+  const P = levels('p'), TH = levels('th'), RU = levels('run')
+  const pv = Float64Array.from(P, (t) => t.v), tv = Float64Array.from(TH, (t) => t.v), rv = Float64Array.from(RU, (t) => t.v)
+  const pHits = new Float64Array(P.length + 1), tHits = new Float64Array(TH.length + 1), rHits = new Float64Array(RU.length + 1)
+  const nP = pv.length, nTv = tv.length, nR = rv.length
+  const { dist, op, th, mag, amp, run, t1, t2 } = w
+  const Rc = S.rec
+  const F = S.flags
+  let m = 0, broken = 0, nTh = 0, nMag = 0
+  // Least and greatest value of each column, so that orderStats can skip a pass.
+  let dLo = Infinity, dHi = -Infinity, pLo = Infinity, pHi = -Infinity, thLo = Infinity, thHi = -Infinity
+  let mLo = Infinity, mHi = -Infinity, aLo = Infinity, aHi = -Infinity, ruLo = Infinity, ruHi = -Infinity
+  let t1Lo = Infinity, t1Hi = -Infinity, t2Lo = Infinity, t2Hi = -Infinity
+  const lnGreenOverD2 = Math.log(green / d2)
+  const lnCapOverD2 = Math.log(OCEAN.breakingIndex)
+  const invD2 = 1 / d2
+  const invCLong60 = 1 / (60 * cLong)
+  for (let i = 0, o = 0; i < n; i++, o += REC.size) {
+    let dot = Rc[o]! * sx + Rc[o + 1]! * sy + Rc[o + 2]! * sz
+    if (dot > 1) dot = 1
+    else if (dot < -1) dot = -1
+    let r = Math.acos(dot) * EARTH_RADIUS_M
+    if (r < 1) r = 1
+    // One division per realisation; everything else multiplies by 1/r.
+    const invR = 1 / r
+    const lr = Math.log(r)
+    const rKm = r * 1e-3
+    dist[i] = rKm
+    if (rKm < dLo) dLo = rKm
+    if (rKm > dHi) dHi = rKm
+    const s = Rc[o + 3]!
+    let p = 0
+    if (s > 0) {
+      if (Rc[o + 5]! > 0 && r < Rc[o + 6]!) p = Rc[o + 7]! * Math.exp(-Rc[o + 8]! * r)
+      // Collins 2005 eq. 54 with r1 = r/s and (rx/r1)^1.3 = exp(1.3 (ln rx + ln s - ln r)).
+      else p = PXRX4 * s * invR * (1 + 3 * Math.exp(1.3 * (LN_RX + Rc[o + 4]! - lr)))
+    }
+    op[i] = p
+    if (p < pLo) pLo = p
+    if (p > pHi) pHi = p
+    let c = 0
+    while (c < nP && p >= pv[c]!) c++
+    pHits[c]!++
+    const K = Rc[o + 9]!
+    if (K > 0) {
+      const zb = Rc[o + 10]!
+      const hidden = (1 - dot) * EARTH_RADIUS_M - zb
+      const rf = Rc[o + 11]!
+      if (hidden < rf) {
+        const phi = visibleFraction(hidden, rf) * K / (r * r + zb * zb)
+        const rel = phi * Rc[o + 12]!
+        c = 0
+        while (c < nTv && rel >= tv[c]!) c++
+        tHits[c]!++
+        // Sparse columns keep only their non-zero values; the zeros are counted (see orderStats).
+        if (phi > 0) {
+          const v = phi * 1e-6
+          th[nTh++] = v
+          if (v < thLo) thLo = v
+          if (v > thHi) thHi = v
+        }
+      }
+    }
+    const M = Rc[o + 13]!
+    if (M === M) {
+      // Collins 2005 eq. 41 (as effectiveMagnitude), inlined.
+      const me = rKm < 60 ? M - 0.0238 * rKm : rKm < 700 ? M - 0.0048 * rKm - 1.1644 : effectiveMagnitude(M, rKm)
+      if (me > 0) {
+        mag[nMag++] = me
+        if (me < mLo) mLo = me
+        if (me > mHi) mHi = me
+      }
+    }
+    if (coastal && F[i]! & FLAG_TSUNAMI) {
+      // Offshore amplitude a and ln(a/d2), from the 1/r decay beyond the cavity radius, in log form.
+      let a: number, lh: number
+      if (r > Rc[o + 15]!) { a = Rc[o + 16]! * green * invR; lh = Rc[o + 17]! - lr + lnGreenOverD2 }
+      else { a = Rc[o + 14]! * green; lh = Math.log(a * invD2) }
+      if (a > cap) { a = cap; lh = lnCapOverD2 }
+      const hd = a * invD2
+      const R = hd < limit ? d2 * 2.831 * sqrtCot * Math.exp(1.25 * lh) : d2 * 1.109 * Math.exp(0.582 * lh)
+      // Breaks on the shelf (McCowan cap) or on the beach (beyond the Synolakis non-breaking limit).
+      if (a >= cap || hd >= limit) broken++
+      c = 0
+      while (c < nR && R >= rv[c]!) c++
+      rHits[c]!++
+      const u1 = r * invCLong60, u2 = r * Rc[o + 18]!
+      amp[m] = a
+      run[m] = R
+      t1[m] = u1
+      t2[m] = u2
+      m++
+      if (a < aLo) aLo = a
+      if (a > aHi) aHi = a
+      if (R < ruLo) ruLo = R
+      if (R > ruHi) ruHi = R
+      if (u1 < t1Lo) t1Lo = u1
+      if (u1 > t1Hi) t1Hi = u1
+      if (u2 < t2Lo) t2Lo = u2
+      if (u2 > t2Hi) t2Hi = u2
+    }
+  }
+  const exceedance = {} as Record<ThresholdKey, number>
+  const tally = (lv: Array<{ idx: number }>, hits: Float64Array) => {
+    let above = 0
+    for (let j = lv.length - 1; j >= 0; j--) { above += hits[j + 1]!; exceedance[THRESHOLDS[lv[j]!.idx]!.key] = above / n }
+  }
+  tally(P, pHits)
+  tally(TH, tHits)
+  tally(RU, rHits)
+  const o = w.os
+  const pct = (x: Float64Array, count: number, zeros: number, lo: number, hi: number) => { orderStats(x, count, o, zeros, lo, hi); return toPercentiles(o) }
+  const zero = { p5: 0, p50: 0, p95: 0 }
+  orderStats(op, n, o, 0, pLo, pHi)
+  const overpressureKPa = toPercentiles(o, (v) => v / 1000)
+  const windMS = toPercentiles(o, peakWindMS)
+  const assessment: SiteAssessment = {
+    siteId: site.id,
+    name: site.name,
+    population: site.population,
+    coastal,
+    distanceKm: pct(dist, n, 0, dLo, dHi),
+    overpressureKPa,
+    windMS,
+    thermalMJM2: pct(th, nTh, n - nTh, thLo, thHi),
+    seismicMagnitude: pct(mag, nMag, n - nMag, mLo, mHi),
+    tsunamiAmplitudeM: pct(amp, m, n - m, aLo, aHi),
+    tsunamiArrivalMin: m > 0 ? pct(t1, m, 0, t1Lo, t1Hi) : zero,
+    tsunamiMainArrivalMin: m > 0 ? pct(t2, m, 0, t2Lo, t2Hi) : zero,
+    runUpM: pct(run, m, n - m, ruLo, ruHi),
+    exceedance,
+  }
+  const inRange = (x: number) => x >= 1 && x <= 8000
+  return { assessment, breakingFraction: m > 0 ? Math.min(1, broken / m) : 0, depthInRange: !coastal || inRange(d2) }
+}

@@ -1,0 +1,102 @@
+/** Types of the hazard engine's results. Units are in the names. */
+
+/** A distribution summarised by its 5th, 50th and 95th percentiles. */
+export interface Percentiles { p5: number; p50: number; p95: number }
+
+/** Damage thresholds of the hazard model (hazard-model.md §3 and §4). */
+export const THRESHOLDS = [
+  { key: 'windows', kind: 'overpressure', value: 6900, label: 'Windows shatter' },
+  { key: 'houseDamage', kind: 'overpressure', value: 22900, label: 'Wood-frame houses badly damaged' },
+  { key: 'houseCollapse', kind: 'overpressure', value: 26800, label: 'Wood-frame houses collapse' },
+  { key: 'multistoreyCracked', kind: 'overpressure', value: 38500, label: 'Multistorey wall-bearing buildings badly cracked' },
+  { key: 'multistoreyCollapse', kind: 'overpressure', value: 42600, label: 'Multistorey wall-bearing buildings collapse' },
+  { key: 'bridgeCollapse', kind: 'overpressure', value: 121000, label: 'Truss bridges collapse' },
+  { key: 'steelFrameCollapse', kind: 'overpressure', value: 273000, label: 'Steel-frame buildings begin to collapse' },
+  { key: 'trees30', kind: 'wind', value: 40, label: 'About 30 % of trees blown down' },
+  { key: 'trees90', kind: 'wind', value: 62, label: 'About 90 % of trees blown down' },
+  { key: 'burn1', kind: 'thermal', value: 0.13e6, label: 'First-degree burns' },
+  { key: 'burn2', kind: 'thermal', value: 0.25e6, label: 'Second-degree burns' },
+  { key: 'burn3', kind: 'thermal', value: 0.42e6, label: 'Third-degree burns' },
+  { key: 'runUp1m', kind: 'runUp', value: 1, label: 'Tsunami run-up above 1 m' },
+  { key: 'runUp3m', kind: 'runUp', value: 3, label: 'Tsunami run-up above 3 m' },
+] as const
+export type ThresholdKey = typeof THRESHOLDS[number]['key']
+/** Units of threshold values: overpressure Pa, wind m/s, thermal J/m² at 1 Mt (scaled by E_Mt^(1/6)), runUp m. */
+export type ThresholdKind = typeof THRESHOLDS[number]['kind']
+
+export interface ModelWarning {
+  /** Stable code, e.g. `high-burst`, `wave-breaking`, `depth-out-of-range`. */
+  code: string
+  message: string
+  /** Share of samples affected, 0..1. */
+  fraction?: number
+  siteId?: string
+}
+
+export interface SiteAssessment {
+  siteId: string
+  name: string
+  population: number
+  /**
+   * True when the site gives an offshore depth; inland sites (none given) get no tsunami figures (all 0).
+   * Always set by the engine; optional so that hand-made fixtures need not carry it.
+   */
+  coastal?: boolean
+  distanceKm: Percentiles
+  overpressureKPa: Percentiles
+  windMS: Percentiles
+  thermalMJM2: Percentiles
+  seismicMagnitude: Percentiles
+  /** Wave amplitude offshore of the site, metres (indicative). */
+  tsunamiAmplitudeM: Percentiles
+  /**
+   * Earliest long-wave arrival after impact, minutes (largest waves come later), over the realisations
+   * that make a tsunami (see Assessment.tsunamiProbability); all 0 when none does.
+   */
+  tsunamiArrivalMin: Percentiles
+  /** Arrival of the dominant impact wave (linear dispersion, wavelength 2 D_tcw), minutes; same conditioning. */
+  tsunamiMainArrivalMin: Percentiles
+  runUpM: Percentiles
+  /**
+   * Probability of exceeding each threshold at this site, 0..1, CONDITIONAL ON IMPACT (the share of
+   * impact realisations that exceed it); multiply by Assessment.impactProbability for the absolute risk.
+   */
+  exceedance: Record<ThresholdKey, number>
+}
+
+export interface AssessmentOptions {
+  samples: number
+  seed: number
+  /** `density`: Collins et al. 2005 eq. 9; `log-uniform`: strength log-uniform over 0.1–10 MPa (Mathias et al. 2017). */
+  strengthModel: 'density' | 'log-uniform'
+}
+
+export interface Assessment {
+  /** Engine version, so stored assessments can be told apart after model changes. */
+  modelVersion: string
+  options: AssessmentOptions
+  impactProbability: number
+  diameterM: Percentiles
+  massKg: Percentiles
+  energyMt: Percentiles
+  /** Share of impact realisations that burst in the air (conditional on impact). */
+  airburstProbability: number
+  /** Over the airburst samples only; null when none burst in the air. */
+  burstAltitudeKm: Percentiles | null
+  /** Share of impact realisations whose impact point is at sea (Natural Earth 1:50m land), airburst or not. */
+  oceanImpactProbability: number
+  /** Share of realisations that reach the sea surface (ocean impact, not an airburst) and so make a tsunami. */
+  tsunamiProbability: number
+  /** Energy delivered to the surface (water or ground), Mt. */
+  surfaceEnergyMt: Percentiles
+  /** Over the ocean, non-airburst samples only; null when none. */
+  waterCavityDiameterM: Percentiles | null
+  sites: SiteAssessment[]
+  /** Expected population exposed to each threshold, CONDITIONAL ON IMPACT (sum over sites of population × exceedance). */
+  exposedPopulation: Record<ThresholdKey, number>
+  torino: number
+  palermo: number
+  warnings: ModelWarning[]
+  /** A thinned, reproducible subset of sampled impact points for maps: [lon, lat, flags] (flags bit0 = sea, bit1 = airburst). */
+  impactPoints: Array<[number, number, number]>
+}

@@ -1,0 +1,15 @@
+/** The Brinkwater scenario file: schema, hazard fields in inject text, YAML import and export. */
+export * from './constants'
+export {
+  scenarioSchema, keySchema, objectiveSchema, teamSchema, clockSchema, phaseSchema,
+  solutionEntrySchema, decisionSchema, injectSchema, criterionSchema,
+} from './schema'
+export type {
+  Scenario, ScenarioInput, Objective, Team, ScenarioClock, Phase, SolutionEntry, Inject, Decision, Criterion,
+} from './schema'
+export { scenarioTimeSchema, scenarioTime } from './time'
+export { scenarioEndTime, currentSolutionAt } from './checks'
+export { HAZARD_FIELDS, findHazardFields, validateHazardFields, renderHazardFields } from './fields'
+export type { HazardFieldSpec, HazardFieldRef, HazardFieldIssue } from './fields'
+export { parseScenarioYaml, stringifyScenario, validateScenario, formatIssuePath, formatScenarioError } from './io'
+export type { ScenarioIssue, ScenarioError, ParseResult, ValidateResult } from './io'

@@ -1,0 +1,19 @@
+/** System roles: an admin manages accounts; everyone else is a member. */
+export const SYSTEM_ROLES = ['admin', 'member'] as const
+export type SystemRole = typeof SYSTEM_ROLES[number]
+
+/** Roles held per exercise. A player also belongs to one team. */
+export const EXERCISE_ROLES = ['facilitator', 'player', 'evaluator', 'analyst'] as const
+export type ExerciseRole = typeof EXERCISE_ROLES[number]
+
+export const ROLE_LABELS: Record<ExerciseRole, string> = {
+  facilitator: 'Facilitator',
+  player: 'Player',
+  evaluator: 'Evaluator',
+  analyst: 'After-action lead',
+}
+
+/** The page each exercise role lands on. */
+export function roleHome(exerciseId: string, _role: ExerciseRole): string {
+  return `/exercises/${exerciseId}`
+}
