@@ -1,7 +1,7 @@
 import withNuxt from './.nuxt/eslint.config.mjs'
 
 export default withNuxt(
-  { ignores: ['drizzle/**', '.output/**', '.data/**', 'test-results/**', 'playwright-report/**'] },
+  { ignores: ['drizzle/**', '.output/**', '.output-*/**', '.nuxt-*/**', '.data/**', 'test-results/**', 'playwright-report/**'] },
   {
     rules: {
       '@typescript-eslint/no-explicit-any': 'error',

@@ -20,6 +20,10 @@ export default defineNuxtConfig({
     // SQLite file; NUXT_DB_PATH overrides.
     dbPath: '.data/brinkwater.sqlite',
     migrationsDir: 'drizzle',
+    // Scenario files loaded into the library by the seed; NUXT_SCENARIOS_DIR overrides.
+    scenariosDir: 'scenarios',
+    // Uploaded attachments; empty: an `attachments` folder beside the database. NUXT_ATTACHMENTS_DIR overrides.
+    attachmentsDir: '',
     // Public address used in e-mailed links; NUXT_APP_URL overrides.
     appUrl: 'http://localhost:3000',
     // Seed the demo accounts, scenario and exercise at start (NUXT_SEED_DEMO=1).
@@ -44,7 +48,10 @@ export default defineNuxtConfig({
       cookie: { sameSite: 'lax', httpOnly: true },
     },
   },
+  // BW_BUILD_DIR / BW_OUTPUT_DIR let two builds run side by side (e.g. a second working copy's tests).
+  buildDir: process.env.BW_BUILD_DIR || '.nuxt',
   nitro: {
+    output: { dir: process.env.BW_OUTPUT_DIR || '.output' },
     experimental: { websocket: true },
   },
   vite: {

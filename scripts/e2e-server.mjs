@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 
 const root = resolve(import.meta.dirname, '..')
-const entry = resolve(root, '.output/server/index.mjs')
+const entry = resolve(root, process.env.BW_OUTPUT_DIR || '.output', 'server/index.mjs')
 if (!existsSync(entry)) {
   console.error('[e2e] No build found: run `npm run build` first (npm test does).')
   process.exit(1)

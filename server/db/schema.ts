@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm'
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import { EXERCISE_ROLES, SYSTEM_ROLES } from '../../shared/utils/roles'
+import type { Scenario } from '../../shared/scenario/schema'
 
 const id = () => text('id').primaryKey().$defaultFn(() => crypto.randomUUID())
 const timestamps = {
@@ -15,8 +16,40 @@ export const users = sqliteTable('users', {
   passwordHash: text('password_hash'),
   systemRole: text('system_role', { enum: SYSTEM_ROLES }).notNull().default('member'),
   disabled: integer('disabled', { mode: 'boolean' }).notNull().default(false),
+  /** May use the scenario library and start exercises (admins always may). */
+  canAuthor: integer('can_author', { mode: 'boolean' }).notNull().default(false),
   ...timestamps,
 }, t => [uniqueIndex('users_email_unique').on(t.email)])
+
+/** The scenario library: each scenario is one validated document (the YAML file's content). */
+export const scenarios = sqliteTable('scenarios', {
+  id: id(),
+  key: text('key').notNull(),
+  title: text('title').notNull(),
+  document: text('document', { mode: 'json' }).$type<Scenario>().notNull(),
+  /** Bumped on every save; a save must name the revision it edited (lost-update guard). */
+  revision: integer('revision').notNull().default(1),
+  origin: text('origin', { enum: ['seed', 'upload', 'editor', 'duplicate'] }).notNull(),
+  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+  updatedBy: text('updated_by').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  uniqueIndex('scenarios_key_unique').on(t.key),
+  index('scenarios_created_by_idx').on(t.createdBy),
+  index('scenarios_updated_by_idx').on(t.updatedBy),
+])
+
+/** Files that injects attach, by the path the scenario file uses; bytes live in Nitro storage by hash. */
+export const scenarioAttachments = sqliteTable('scenario_attachments', {
+  id: id(),
+  scenarioId: text('scenario_id').notNull().references(() => scenarios.id, { onDelete: 'cascade' }),
+  path: text('path').notNull(),
+  name: text('name').notNull(),
+  contentType: text('content_type').notNull(),
+  size: integer('size').notNull(),
+  sha256: text('sha256').notNull(),
+  ...timestamps,
+}, t => [uniqueIndex('scenario_attachments_path_unique').on(t.scenarioId, t.path)])
 
 export const exercises = sqliteTable('exercises', {
   id: id(),
@@ -24,8 +57,24 @@ export const exercises = sqliteTable('exercises', {
   description: text('description').notNull().default(''),
   status: text('status', { enum: ['planned', 'running', 'paused', 'ended'] }).notNull().default('planned'),
   createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+  /** The library scenario it started from (null once that is deleted). */
+  scenarioId: text('scenario_id').references(() => scenarios.id, { onDelete: 'set null' }),
+  /** The copy frozen at start: later edits to the library scenario do not reach this drill. */
+  scenario: text('scenario', { mode: 'json' }).$type<Scenario>(),
   ...timestamps,
-}, t => [index('exercises_created_by_idx').on(t.createdBy)])
+}, t => [index('exercises_created_by_idx').on(t.createdBy), index('exercises_scenario_idx').on(t.scenarioId)])
+
+/** The attachments frozen with an exercise's scenario copy. */
+export const exerciseAttachments = sqliteTable('exercise_attachments', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  path: text('path').notNull(),
+  name: text('name').notNull(),
+  contentType: text('content_type').notNull(),
+  size: integer('size').notNull(),
+  sha256: text('sha256').notNull(),
+  ...timestamps,
+}, t => [uniqueIndex('exercise_attachments_path_unique').on(t.exerciseId, t.path)])
 
 export const memberships = sqliteTable('memberships', {
   id: id(),

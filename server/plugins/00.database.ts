@@ -1,7 +1,14 @@
-// Applies migrations before the first request, then seeds the demo when asked to.
+import { dirname, resolve } from 'node:path'
+import fsDriver from 'unstorage/drivers/fs'
+
+// Applies migrations before the first request, mounts attachment storage, then seeds the demo when asked to.
 export default defineNitroPlugin(async () => {
   runMigrations()
-  if (String(useRuntimeConfig().seedDemo) === 'true' || process.env.NUXT_SEED_DEMO === '1') {
+  const config = useRuntimeConfig()
+  const dbFile = resolve(process.env.NUXT_DB_PATH || config.dbPath)
+  const base = resolve(process.env.NUXT_ATTACHMENTS_DIR || config.attachmentsDir || resolve(dirname(dbFile), 'attachments'))
+  useStorage().mount('attachments', fsDriver({ base }))
+  if (String(config.seedDemo) === 'true' || process.env.NUXT_SEED_DEMO === '1') {
     await seedDemo()
   }
 })

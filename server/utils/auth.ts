@@ -21,6 +21,13 @@ export async function requireAdmin(event: H3Event): Promise<User> {
   return user
 }
 
+/** Admins and scenario authors: the scenario library and starting exercises. Others → 403. */
+export async function requireAuthor(event: H3Event): Promise<User> {
+  const user = await requireUser(event)
+  if (user.systemRole !== 'admin' && !user.canAuthor) throw createError({ statusCode: 403, message: 'Only scenario authors and administrators use the scenario library.' })
+  return user
+}
+
 export interface ExerciseAccess {
   user: User
   /** Null for an admin looking in without a drill role. */
@@ -54,5 +61,5 @@ export const ALL_EXERCISE_ROLES: readonly ExerciseRole[] = ['facilitator', 'play
 
 /** What the session keeps of a user (ids only; roles are always read from the database). */
 export function sessionUser(user: User) {
-  return { id: user.id, email: user.email, name: user.name, systemRole: user.systemRole }
+  return { id: user.id, email: user.email, name: user.name, systemRole: user.systemRole, canAuthor: user.systemRole === 'admin' || user.canAuthor }
 }

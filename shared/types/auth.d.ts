@@ -4,6 +4,8 @@ declare module '#auth-utils' {
     email: string
     name: string
     systemRole: 'admin' | 'member'
+    /** May use the scenario library (admins always may). */
+    canAuthor: boolean
   }
 }
 export {}

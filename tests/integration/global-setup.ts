@@ -27,7 +27,7 @@ let server: ChildProcess | undefined
 let dir: string | undefined
 
 export async function setup(project: TestProject) {
-  const entry = resolve(import.meta.dirname, '../../.output/server/index.mjs')
+  const entry = resolve(import.meta.dirname, '../..', process.env.BW_OUTPUT_DIR || '.output', 'server/index.mjs')
   if (!existsSync(entry)) throw new Error('No build found: run `npm run build` before the integration tests (npm test does).')
   dir = mkdtempSync(join(tmpdir(), 'brinkwater-it-'))
   const [port, smtpPort] = [await freePort(), await freePort()]

@@ -1,0 +1,17 @@
+import { and, eq } from 'drizzle-orm'
+import { exerciseMemberParams } from '../../../../../shared/schemas/scenarios'
+
+// The facilitator removes a member; the last facilitator cannot be removed.
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id, userId } = paramsValid(event, exerciseMemberParams)
+  const { user } = await requireExerciseRole(event, id, ['facilitator'])
+  const where = and(eq(schema.memberships.exerciseId, id), eq(schema.memberships.userId, userId))
+  const current = useDB().select().from(schema.memberships).where(where).get()
+  if (!current) throw createError({ statusCode: 404, message: 'No such member.' })
+  if (current.role === 'facilitator') assertFacilitatorRemains(id, userId)
+  useDB().delete(schema.memberships).where(where).run()
+  audit(user.id, 'exercise.member.remove', id, { userId })
+  setResponseStatus(event, 204)
+  return null
+})

@@ -1,0 +1,18 @@
+import { and, eq } from 'drizzle-orm'
+import { exerciseMemberParams, memberPatchSchema } from '../../../../../shared/schemas/scenarios'
+
+// The facilitator changes a member's role or team.
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id, userId } = paramsValid(event, exerciseMemberParams)
+  const { user } = await requireExerciseRole(event, id, ['facilitator'])
+  const input = await readValid(event, memberPatchSchema)
+  const teamKey = checkTeam(getExercise(id), input.role, input.teamKey)
+  const where = and(eq(schema.memberships.exerciseId, id), eq(schema.memberships.userId, userId))
+  const current = useDB().select().from(schema.memberships).where(where).get()
+  if (!current) throw createError({ statusCode: 404, message: 'No such member.' })
+  if (current.role === 'facilitator' && input.role !== 'facilitator') assertFacilitatorRemains(id, userId)
+  useDB().update(schema.memberships).set({ role: input.role, teamKey }).where(where).run()
+  audit(user.id, 'exercise.member.change', id, { userId, role: input.role, teamKey })
+  return { userId, role: input.role, teamKey }
+})

@@ -1,0 +1,5 @@
+// The scenario library (authors and admins).
+export default defineEventHandler(async (event) => {
+  await requireAuthor(event)
+  return listScenarios()
+})
