@@ -63,3 +63,17 @@ export const ALL_EXERCISE_ROLES: readonly ExerciseRole[] = ['facilitator', 'play
 export function sessionUser(user: User) {
   return { id: user.id, email: user.email, name: user.name, systemRole: user.systemRole, canAuthor: user.systemRole === 'admin' || user.canAuthor }
 }
+
+/**
+ * Signs a user in on a brand-new session (new id): the old cookie is cleared and dropped from
+ * the request, so a session planted before sign-in is never carried over (session fixation).
+ */
+export async function startFreshSession(event: H3Event, user: User): Promise<void> {
+  await clearUserSession(event)
+  const name = useRuntimeConfig().session.name || 'nuxt-session'
+  const header = event.node.req.headers.cookie
+  if (header) {
+    event.node.req.headers.cookie = header.split(';').map(c => c.trim()).filter(c => !c.startsWith(`${name}=`)).join('; ')
+  }
+  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
+}

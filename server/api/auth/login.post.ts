@@ -13,8 +13,6 @@ export default defineEventHandler(async (event) => {
     throw createError({ statusCode: 401, message: BAD_CREDENTIALS })
   }
   await recordLoginSuccess(event, email)
-  // A fresh session on every sign-in (no fixation across accounts).
-  await clearUserSession(event)
-  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
+  await startFreshSession(event, user)
   return { user: sessionUser(user) }
 })

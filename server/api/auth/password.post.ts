@@ -8,7 +8,6 @@ export default defineEventHandler(async (event) => {
   const passwordHash = await hashPassword(password)
   const user = useDB().update(schema.users).set({ passwordHash }).where(eq(schema.users.id, userId)).returning().get()
   if (!user || user.disabled) throw createError({ statusCode: 400, message: 'This link is invalid or has expired. Ask for a new one.' })
-  await clearUserSession(event)
-  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
+  await startFreshSession(event, user)
   return { user: sessionUser(user) }
 })
