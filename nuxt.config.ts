@@ -52,6 +52,8 @@ export default defineNuxtConfig({
   buildDir: process.env.BW_BUILD_DIR || '.nuxt',
   nitro: {
     output: { dir: process.env.BW_OUTPUT_DIR || '.output' },
+    // Node 20's `module-sync` export condition is not followed by the file tracer (exceljs → async-function and friends).
+    externals: { traceInclude: ['async-function', 'generator-function', 'async-generator-function'].map(p => `node_modules/${p}/require.mjs`) },
     experimental: { websocket: true },
   },
   vite: {

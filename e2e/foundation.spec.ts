@@ -16,6 +16,14 @@ test('an anonymous visitor is sent to sign in', async ({ page }) => {
   await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible()
 })
 
+test('an empty form shows the problem beside each field', async ({ page }) => {
+  await page.goto('/signin')
+  await page.getByLabel('E-mail').fill('not-an-address')
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await expect(page.locator('#email-error')).toContainText(/valid e-mail/i)
+  await expect(page.locator('#password-error')).toContainText(/password/i)
+})
+
 test('a wrong password shows one vague message and keeps the form', async ({ page }) => {
   await page.goto('/signin')
   await page.getByLabel('E-mail').fill('comms@brinkwater.test')

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm'
-import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
+import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import { EXERCISE_ROLES, SYSTEM_ROLES } from '../../shared/utils/roles'
 import type { Scenario } from '../../shared/scenario/schema'
 
@@ -120,3 +120,80 @@ export const caughtMail = sqliteTable('caught_mail', {
   attachments: text('attachments', { mode: 'json' }).$type<Array<{ filename: string; contentType: string; size: number }>>().notNull(),
   ...timestamps,
 })
+
+/** The clock of a running exercise: scenario time = scenarioAnchor + (now − wallAnchor) × factor unless paused (shared/live/clock.ts). */
+export const exerciseClocks = sqliteTable('exercise_clocks', {
+  exerciseId: text('exercise_id').primaryKey().references(() => exercises.id, { onDelete: 'cascade' }),
+  /** Wall time of the last change, ms since the epoch. */
+  wallAnchor: integer('wall_anchor').notNull(),
+  /** Scenario time at the wall anchor, ms since the epoch. */
+  scenarioAnchor: integer('scenario_anchor').notNull(),
+  /** Scenario milliseconds per wall millisecond. */
+  factor: real('factor').notNull(),
+  paused: integer('paused', { mode: 'boolean' }).notNull(),
+  ...timestamps,
+})
+
+/**
+ * The append-only record of an exercise. `seq` counts from 1 per exercise; `audience` says who may
+ * read it: `all`, `control` (facilitator), `evaluators` (evaluators, analysts, facilitator) or
+ * `teams:<key>[,<key>…]` (those teams' players, plus staff). See shared/live/visibility.ts.
+ */
+export const exerciseEvents = sqliteTable('exercise_events', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  seq: integer('seq').notNull(),
+  type: text('type').notNull(),
+  wallTime: integer('wall_time').notNull(),
+  scenarioTime: integer('scenario_time').notNull(),
+  actorId: text('actor_id').references(() => users.id, { onDelete: 'set null' }),
+  audience: text('audience').notNull(),
+  payload: text('payload', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+  /** A client's key for a write it may retry: one event per (exercise, actor, key). */
+  idempotencyKey: text('idempotency_key'),
+}, t => [
+  uniqueIndex('exercise_events_seq_unique').on(t.exerciseId, t.seq),
+  uniqueIndex('exercise_events_idempotency_unique').on(t.exerciseId, t.actorId, t.idempotencyKey),
+  index('exercise_events_actor_idx').on(t.actorId),
+])
+
+/** Held and released injects (scenario ones and ad-hoc messages): one row per inject, so a release happens once. */
+export const exerciseInjects = sqliteTable('exercise_injects', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  injectKey: text('inject_key').notNull(),
+  status: text('status', { enum: ['held', 'released'] }).notNull(),
+  /** Ad-hoc messages only: what the facilitator wrote (scenario injects live in the frozen scenario). */
+  definition: text('definition', { mode: 'json' }).$type<Record<string, unknown>>(),
+  releasedSeq: integer('released_seq'),
+  /** The solution the current body was rendered against (null: no hazard fields, or none published yet). */
+  solutionKey: text('solution_key'),
+  /** The current rendered body. */
+  body: text('body'),
+  revision: integer('revision').notNull().default(0),
+  ...timestamps,
+}, t => [uniqueIndex('exercise_injects_key_unique').on(t.exerciseId, t.injectKey)])
+
+/** Published orbit solutions: one row per solution, pointing at its `solution.published` event (which holds the assessment). */
+export const exerciseSolutions = sqliteTable('exercise_solutions', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  solutionKey: text('solution_key').notNull(),
+  seq: integer('seq').notNull(),
+  ...timestamps,
+}, t => [uniqueIndex('exercise_solutions_key_unique').on(t.exerciseId, t.solutionKey)])
+
+/** Revocable share links of the wall view; only the SHA-256 hash of the token is kept. */
+export const wallTokens = sqliteTable('wall_tokens', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  tokenHash: text('token_hash').notNull(),
+  label: text('label').notNull().default(''),
+  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+  revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
+  ...timestamps,
+}, t => [
+  uniqueIndex('wall_tokens_hash_unique').on(t.tokenHash),
+  index('wall_tokens_exercise_idx').on(t.exerciseId),
+  index('wall_tokens_created_by_idx').on(t.createdBy),
+])

@@ -1,10 +1,50 @@
 import type { NitroApp } from 'nitropack'
 import { Server as Engine } from 'engine.io'
 import { Server } from 'socket.io'
-import { eq } from 'drizzle-orm'
+import type { Socket } from 'socket.io'
+import { and, eq } from 'drizzle-orm'
+import { liveAuthSchema } from '../../shared/schemas/live'
+import { rooms } from '../../shared/live/visibility'
+import type { LiveReady, LiveView } from '../../shared/live/types'
+
+interface LiveSocketData { exerciseId: string; view: LiveView; lastSeq: number; wallTokenId?: string }
+
+/** The rooms a reader of an exercise joins (the facilitator hears evaluator traffic through control). */
+function roomsOf(exerciseId: string, view: LiveView): string[] {
+  switch (view.kind) {
+    case 'control': return [rooms.control(exerciseId), rooms.evaluators(exerciseId)]
+    case 'evaluator': return [rooms.evaluators(exerciseId)]
+    case 'player': return [rooms.team(exerciseId, view.teamKey)]
+    case 'wall': return [rooms.wall(exerciseId)]
+  }
+}
+
+/** The reader view of a signed-in user in an exercise; null when not a member (admins read as evaluators). */
+function memberView(exerciseId: string, userId: string, systemRole: string): LiveView | null {
+  const membership = useDB().select().from(schema.memberships)
+    .where(and(eq(schema.memberships.exerciseId, exerciseId), eq(schema.memberships.userId, userId))).get()
+  if (membership) return viewOf(membership)
+  const exists = useDB().select({ id: schema.exercises.id }).from(schema.exercises).where(eq(schema.exercises.id, exerciseId)).get()
+  return exists && systemRole === 'admin' ? viewOf(null) : null
+}
+
+/** Joins the reader's rooms, replays what it missed after lastSeq and says it is ready: all in one tick, so no event falls between. */
+function joinLive(socket: Socket, live: LiveSocketData): void {
+  socket.join(roomsOf(live.exerciseId, live.view))
+  if (live.wallTokenId) socket.join(rooms.wallToken(live.wallTokenId))
+  for (const e of visibleEvents(live.exerciseId, live.view, live.lastSeq)) socket.emit('event', e)
+  const exercise = liveExercise(useDB(), live.exerciseId)
+  const ready: LiveReady = {
+    exerciseId: live.exerciseId, view: live.view.kind, teamKey: live.view.kind === 'player' ? live.view.teamKey : null,
+    clock: clockNow(exercise).clock, lastSeq: latestSeq(live.exerciseId), serverTime: Date.now(),
+  }
+  socket.emit('live:ready', ready)
+}
 
 // All realtime glue: Socket.IO bound to Nitro's router on /socket.io/ (HTTP long-polling and
-// WebSocket upgrades through crossws). Every connection must carry a valid session cookie.
+// WebSocket upgrades through crossws). A connection carries a valid session cookie, optionally with
+// auth { exerciseId, lastSeq } to follow an exercise it is a member of; or, for the wall view, only
+// auth { wallToken, lastSeq }.
 export default defineNitroPlugin((nitroApp: NitroApp) => {
   const engine = new Engine({ pingInterval: 10_000, pingTimeout: 8_000, path: '/socket.io/' } as ConstructorParameters<typeof Engine>[0])
   const io = new Server({ serveClient: false, connectionStateRecovery: undefined })
@@ -13,11 +53,25 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
 
   io.use(async (socket, next) => {
     try {
+      const auth = liveAuthSchema.safeParse(socket.handshake.auth ?? {})
+      if (!auth.success) return next(new Error('invalid-auth'))
+      const { exerciseId, wallToken, lastSeq } = auth.data
+      if (wallToken !== undefined) {
+        const wall = findWallToken(wallToken)
+        if (!wall) return next(new Error('forbidden'))
+        socket.data.live = { exerciseId: wall.exerciseId, view: { kind: 'wall' }, lastSeq, wallTokenId: wall.id } satisfies LiveSocketData
+        return next()
+      }
       const sessionUser = await userFromHandshake(socket.request)
       const user = sessionUser && useDB().select().from(schema.users).where(eq(schema.users.id, sessionUser.id)).get()
       if (!user || user.disabled) return next(new Error('unauthorized'))
       socket.data.userId = user.id
       socket.data.systemRole = user.systemRole
+      if (exerciseId) {
+        const view = memberView(exerciseId, user.id, user.systemRole)
+        if (!view) return next(new Error('forbidden'))
+        socket.data.live = { exerciseId, view, lastSeq } satisfies LiveSocketData
+      }
       next()
     }
     catch {
@@ -26,8 +80,17 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
   })
 
   io.on('connection', (socket) => {
-    socket.join(`user:${socket.data.userId}`)
-    socket.emit('hello', { userId: socket.data.userId, serverTime: Date.now() })
+    if (socket.data.userId) {
+      socket.join(`user:${socket.data.userId}`)
+      socket.emit('hello', { userId: socket.data.userId, serverTime: Date.now() })
+    }
+    if (socket.data.live) {
+      try { joinLive(socket, socket.data.live as LiveSocketData) }
+      catch (err) {
+        console.error('[socket.io] live join failed:', err)
+        socket.disconnect(true)
+      }
+    }
     socket.on('ping:clock', (ack: unknown) => {
       if (typeof ack === 'function') ack({ serverTime: Date.now() })
     })

@@ -1,0 +1,91 @@
+import { io } from 'socket.io-client'
+import type { Socket } from 'socket.io-client'
+import { storeToRefs } from 'pinia'
+import type { MaybeRefOrGetter } from 'vue'
+import type { LiveEvent, LiveEventType, LiveReady } from '~~/shared/live/types'
+import { useLiveStore } from '~/stores/live'
+
+type Handler = (e: LiveEvent) => void
+
+// Client-only singletons: one live connection (apart from useSocket's), shared by every component.
+let socket: Socket | null = null
+let ticker: ReturnType<typeof setInterval> | null = null
+let users = 0
+let closing: ReturnType<typeof setTimeout> | null = null
+const handlers = new Map<string, Set<Handler>>()
+
+function dispatch(e: LiveEvent) {
+  for (const name of [e.type, '*']) for (const h of handlers.get(name) ?? []) h(e)
+}
+
+function close(store: ReturnType<typeof useLiveStore>) {
+  socket?.close()
+  socket = null
+  if (ticker) clearInterval(ticker)
+  ticker = null
+  if (store.status !== 'idle') store.status = 'closed'
+}
+
+function open(store: ReturnType<typeof useLiveStore>, exerciseId: string) {
+  close(store)
+  store.reset(exerciseId)
+  store.status = 'connecting'
+  // auth is read on every (re)connection, so a reconnect asks for what came after the last seq held.
+  const s = io({ path: '/socket.io/', transports: ['websocket', 'polling'], forceNew: true, auth: cb => cb({ exerciseId, lastSeq: store.lastSeq }) })
+  s.on('event', (e: LiveEvent) => { if (store.ingest(e)) dispatch(e) })
+  s.on('live:ready', (r: LiveReady) => {
+    store.ready(r)
+    const t0 = Date.now()
+    s.emit('ping:clock', ({ serverTime }: { serverTime: number }) => {
+      const t1 = Date.now()
+      store.setOffset(serverTime + (t1 - t0) / 2 - t1)
+    })
+  })
+  s.on('disconnect', (reason) => { store.status = reason === 'io client disconnect' ? 'closed' : 'reconnecting' })
+  s.on('connect_error', (err) => {
+    store.error = err.message
+    store.status = s.active ? 'reconnecting' : 'refused'
+  })
+  socket = s
+  ticker = setInterval(() => store.tick(), 250)
+}
+
+/**
+ * Follows one live exercise: connects with auth { exerciseId, lastSeq }, keeps its events in the
+ * live store (deduplicated by seq), resyncs from the last seq after every reconnect, and ticks the
+ * scenario clock locally. Client-only; the connection closes when the last user unmounts.
+ * `on(type, handler)` (or `on('*', …)`) runs for each new event and is removed on unmount.
+ */
+export function useExerciseLive(exerciseId: MaybeRefOrGetter<string>) {
+  const store = useLiveStore()
+  const refs = storeToRefs(store)
+
+  function on<T extends LiveEventType>(type: T | '*', handler: (e: LiveEvent<T>) => void) {
+    const set = handlers.get(type) ?? new Set<Handler>()
+    handlers.set(type, set.add(handler as Handler))
+    if (getCurrentInstance()) onBeforeUnmount(() => set.delete(handler as Handler))
+  }
+  /** Drops the connection and starts afresh (a full replay). */
+  const reconnect = () => open(store, toValue(exerciseId))
+  const disconnect = () => close(store)
+
+  if (import.meta.client) {
+    const acquire = () => {
+      users++
+      if (closing) clearTimeout(closing)
+      closing = null
+      if (!socket || store.exerciseId !== toValue(exerciseId)) open(store, toValue(exerciseId))
+    }
+    if (getCurrentInstance()) {
+      onMounted(acquire)
+      // A short grace period lets the next page reuse the connection.
+      onBeforeUnmount(() => {
+        if (--users === 0) closing = setTimeout(() => close(store), 2000)
+      })
+      watch(() => toValue(exerciseId), (id, old) => { if (id !== old) open(store, id) })
+    }
+    else acquire()
+  }
+
+  return { store, ...refs, on, reconnect, disconnect }
+}

@@ -1,0 +1,171 @@
+import { expect, test, type Page } from '@playwright/test'
+import { PASSWORD, shot, signIn } from './helpers'
+
+const FACILITATOR = 'facilitator@brinkwater.test'
+
+/**
+ * Signs in as the facilitator (through the form, or straight through the API where the form is not
+ * what the test is about) and returns the library id of the demo scenario.
+ */
+async function demoScenarioId(page: Page, viaForm = true): Promise<string> {
+  if (viaForm) await signIn(page, FACILITATOR)
+  else expect((await page.request.post('/api/auth/login', { data: { email: FACILITATOR, password: PASSWORD } })).ok()).toBe(true)
+  const res = await page.request.get('/api/scenarios')
+  expect(res.ok()).toBe(true)
+  const list = await res.json() as Array<{ id: string; key: string }>
+  const demo = list.find(s => s.key === 'demo-ocean-impact')
+  expect(demo).toBeTruthy()
+  return demo!.id
+}
+
+async function useTheme(page: Page, theme: 'light' | 'dark') {
+  await page.context().addCookies([{ name: 'bw-theme', value: theme, url: test.info().project.use.baseURL! }])
+}
+
+async function briefReady(page: Page) {
+  await expect(page.getByTestId('hazard-brief')).toBeVisible({ timeout: 30_000 })
+  await expect(page.getByTestId('drill-banner').first()).toContainText('EXERCISE — EXERCISE — EXERCISE')
+  await expect(page.getByTestId('map-land')).toHaveAttribute('d', /^M/, { timeout: 20_000 })
+}
+
+test('a facilitator reads the threat brief, moves through the solutions and zooms the map', async ({ page }) => {
+  const id = await demoScenarioId(page)
+  await page.goto(`/brief/${id}`)
+  await expect(page.getByRole('heading', { name: 'Threat brief' })).toBeVisible()
+  await briefReady(page)
+
+  // The first solution: an Atlantic-wide corridor, drawn in the ocean view.
+  await page.getByTestId('solution-picker').selectOption({ index: 0 })
+  await expect(page).toHaveURL(/solution=s1-discovery/)
+  await expect(page.getByTestId('map-view-ocean')).toHaveAttribute('aria-checked', 'true')
+  const map = page.getByTestId('hazard-map-svg')
+  await expect(map.locator('[data-corridor="current"]')).toHaveAttribute('d', /^M[\d.]+/)
+  await expect(page.getByTestId('points-sea')).toHaveAttribute('d', /^M/)
+  await expect(page.getByTestId('figure-torino')).toContainText(/Torino scale\s*1(?!\d)/)
+  await page.getByTestId('hazard-map').scrollIntoViewIfNeeded()
+  await shot(page, 'brief-laptop-light-ocean')
+
+  // The evolution chart is drawn (SVG renderer) and has its table behind it.
+  const evolution = page.getByTestId('evolution-chart')
+  await expect(evolution.getByTestId('chart-canvas').locator('svg').first()).toBeVisible({ timeout: 20_000 })
+  await expect(evolution.getByTestId('chart-table')).toContainText('Solution 7')
+  await evolution.getByRole('button', { name: 'Show as table' }).click()
+  await expect(evolution.getByTestId('chart-table').getByRole('table')).toBeVisible()
+  await evolution.getByRole('button', { name: 'Show as chart' }).click()
+
+  // The last solution: impact certain, a point off the coast, regional view with the sites by name.
+  await page.getByTestId('solution-picker').selectOption({ index: 6 })
+  await expect(page).toHaveURL(/solution=s7-certain/)
+  await expect(page.getByTestId('map-view-regional')).toHaveAttribute('aria-checked', 'true')
+  await expect(page.getByTestId('map-land')).toHaveAttribute('d', /^M/, { timeout: 20_000 })
+  await expect(map.locator('[data-corridor="current"]')).toHaveAttribute('d', /^M[\d.]+/)
+  await expect(map.locator('[data-corridor="earlier"]')).toHaveCount(6)
+  await expect(map.locator('[data-ring="windows"]')).toHaveCount(1)
+  const labels = map.getByTestId('site-label')
+  expect(await labels.count()).toBeGreaterThanOrEqual(8)
+  await expect(labels.filter({ hasText: 'Porto Salgado' })).toHaveCount(1)
+
+  const headline = page.getByTestId('hazard-headline')
+  await expect(headline.getByTestId('figure-torino')).toContainText(/Torino scale\s*9/)
+  await expect(headline.getByTestId('figure-energy')).toContainText(/\d+ Mt TNT/)
+  await expect(headline.getByTestId('figure-energy')).toContainText(/5–95 %: \d+–\d+ Mt TNT/)
+  await expect(headline.getByTestId('figure-probability')).toContainText('100 %')
+  await expect(page.getByTestId('hazard-warnings')).toContainText('indicative')
+  await expect(page.getByTestId('map-legend')).toContainText(/Windows shatter: 6\.9 kPa \(1\.0 psi\) within \d+ km \(\d+ nmi\)/)
+  await expect(page.getByTestId('hazard-caution')).toContainText('for training only')
+  await page.evaluate(() => window.scrollTo(0, 0))
+  await shot(page, 'brief-laptop-light')
+
+  // Zoom with the keyboard and the buttons; reset returns to the fitted view.
+  const group = page.getByTestId('hazard-map-svg').locator('g').first()
+  const before = await group.getAttribute('transform')
+  await page.getByTestId('map-viewport').focus()
+  await page.keyboard.press('+')
+  await page.keyboard.press('ArrowLeft')
+  await expect(group).not.toHaveAttribute('transform', before!)
+  await page.getByTestId('map-reset').click()
+  await expect(group).toHaveAttribute('transform', before!)
+  await page.mouse.move(400, 400)
+
+  // Charts in tabs: blast, tsunami, and the sortable site table.
+  await page.getByTestId('tab-blast').click()
+  await expect(page.getByTestId('chart-overpressure').getByTestId('chart-canvas').locator('svg').first()).toBeVisible()
+  await page.getByTestId('tab-tsunami').click()
+  await expect(page.getByTestId('chart-tsunami').getByTestId('chart-canvas').locator('svg').first()).toBeVisible()
+  await page.getByTestId('tab-sites').click()
+  const table = page.getByTestId('sites-table')
+  const people = table.getByRole('columnheader', { name: /People/ })
+  await people.getByRole('button').click()
+  await expect(people).toHaveAttribute('aria-sort', 'ascending')
+  await expect(table.locator('tbody tr').first()).toContainText('Vento Largo')
+  await people.getByRole('button').click()
+  await expect(table.locator('tbody tr').first()).toContainText('Montalvor')
+  await expect(page.getByTestId('chart-exceedance').getByTestId('chart-canvas').locator('svg').first()).toBeVisible()
+  await page.getByTestId('hazard-charts').scrollIntoViewIfNeeded()
+  await shot(page, 'brief-laptop-light-charts')
+})
+
+test('the brief on a projector in the dark theme', async ({ page }) => {
+  await page.setViewportSize({ width: 1920, height: 1080 })
+  await useTheme(page, 'dark')
+  const id = await demoScenarioId(page, false)
+  await page.goto(`/brief/${id}?solution=s5-more-likely-than-not`)
+  await briefReady(page)
+  await expect(page.locator('html')).toHaveClass(/dark/)
+  await expect(page.getByTestId('figure-probability')).toContainText('62 %')
+  await shot(page, 'brief-projector-dark')
+  await page.getByTestId('evolution-chart').scrollIntoViewIfNeeded()
+  await page.waitForTimeout(300)
+  await shot(page, 'brief-projector-dark-evolution')
+  for (const tab of ['blast', 'tsunami'] as const) {
+    await page.getByTestId(`tab-${tab}`).click()
+    await expect(page.getByTestId(`chart-${tab === 'blast' ? 'overpressure' : 'tsunami'}`).getByTestId('chart-canvas').locator('svg').first()).toBeVisible()
+    await page.getByTestId('hazard-charts').scrollIntoViewIfNeeded()
+    await shot(page, `brief-projector-dark-${tab}`)
+  }
+  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)
+  expect(overflow).toBeLessThanOrEqual(0)
+})
+
+for (const theme of ['dark', 'light'] as const) {
+  test(`the wall variant is readable from the back of the room (${theme})`, async ({ page }) => {
+    await page.setViewportSize({ width: 1920, height: 1080 })
+    await useTheme(page, theme)
+    const id = await demoScenarioId(page, false)
+    await page.goto(`/brief/${id}?variant=wall&solution=s7-certain`)
+    await expect(page.getByTestId('brief-wall')).toBeVisible()
+    await briefReady(page)
+    await expect(page.getByTestId('hazard-brief')).toHaveAttribute('data-variant', 'wall')
+    const value = page.getByTestId('figure-energy').locator('dd').first()
+    const px = await value.evaluate(el => Number.parseFloat(getComputedStyle(el).fontSize))
+    expect(px).toBeGreaterThanOrEqual(28)
+    // Minimal chrome: no site navigation, no chart tabs; nothing scrolls.
+    await expect(page.getByRole('navigation', { name: 'Main' })).toHaveCount(0)
+    await expect(page.getByTestId('hazard-charts')).toHaveCount(0)
+    const scroll = await page.evaluate(() => [document.documentElement.scrollWidth - innerWidth, document.documentElement.scrollHeight - innerHeight])
+    expect(scroll[0]).toBeLessThanOrEqual(0)
+    expect(scroll[1]).toBeLessThanOrEqual(0)
+    await shot(page, `brief-wall-${theme}`)
+  })
+}
+
+test('the team-room and editor-preview variants', async ({ page }) => {
+  const id = await demoScenarioId(page, false)
+  await page.goto(`/brief/${id}?variant=room&solution=s6-near-certain`)
+  await briefReady(page)
+  await expect(page.getByTestId('hazard-brief')).toHaveAttribute('data-variant', 'room')
+  await expect(page.getByRole('button', { name: 'Download map (SVG)' })).toHaveCount(0)
+  await expect(page.getByTestId('hazard-charts')).toBeVisible()
+  await page.getByRole('link', { name: 'Editor preview' }).click()
+  await expect(page.getByTestId('hazard-brief')).toHaveAttribute('data-variant', 'preview')
+  await expect(page.getByTestId('hazard-headline')).toHaveAttribute('data-size', 'compact')
+  await expect(page.getByTestId('hazard-charts')).toHaveCount(0)
+  await expect(page.getByTestId('hazard-map-svg').locator('[data-corridor="current"]')).toHaveAttribute('d', /^M/)
+  await shot(page, 'brief-preview-light')
+})
+
+test('a player is told that library briefs are for facilitators', async ({ page }) => {
+  await signIn(page, 'science@brinkwater.test')
+  await page.goto('/brief/00000000-0000-4000-8000-000000000000')
+  await expect(page.getByTestId('brief-not-allowed')).toContainText('for facilitators')
+})

@@ -1,0 +1,11 @@
+import { injectParamsSchema } from '../../../../../../shared/schemas/live'
+import { sanitise } from '../../../../../../shared/live/visibility'
+
+// The facilitator releases an inject now (early, held or contingency); once only, again → 409.
+export default defineEventHandler(async (event) => {
+  const { exerciseId, user, view } = await requireLiveRole(event, ['facilitator'])
+  const { key } = paramsValid(event, injectParamsSchema)
+  const released = releaseInject(exerciseId, key, { actorId: user.id, manual: true })
+  setResponseStatus(event, 201)
+  return { event: sanitise(released, view) }
+})

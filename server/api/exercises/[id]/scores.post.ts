@@ -1,0 +1,11 @@
+import { scoreSchema } from '../../../../shared/schemas/live'
+import { sanitise } from '../../../../shared/live/visibility'
+
+// An evaluator (or the facilitator) rates a critical task P, S, M or U.
+export default defineEventHandler(async (event) => {
+  const { exerciseId, user, view } = await requireLiveRole(event, ['evaluator', 'facilitator'])
+  const input = await readValid(event, scoreSchema)
+  const { event: written, created } = recordScore(exerciseId, user, input)
+  setResponseStatus(event, created ? 201 : 200)
+  return { event: sanitise(written, view) }
+})

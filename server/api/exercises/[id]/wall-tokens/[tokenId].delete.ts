@@ -1,0 +1,10 @@
+import { wallTokenParamsSchema } from '../../../../../shared/schemas/live'
+
+// The facilitator revokes a wall link; walls using it are disconnected.
+export default defineEventHandler(async (event) => {
+  const { exerciseId, user } = await requireLiveRole(event, ['facilitator'])
+  const { tokenId } = paramsValid(event, wallTokenParamsSchema)
+  revokeWallToken(exerciseId, tokenId, user.id)
+  setResponseStatus(event, 204)
+  return null
+})

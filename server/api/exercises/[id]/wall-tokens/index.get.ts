@@ -1,0 +1,5 @@
+// The facilitator's wall links (without their tokens).
+export default defineEventHandler(async (event) => {
+  const { exerciseId } = await requireLiveRole(event, ['facilitator'])
+  return listWallTokens(exerciseId)
+})

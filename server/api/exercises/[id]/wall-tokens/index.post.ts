@@ -1,0 +1,10 @@
+import { wallTokenSchema } from '../../../../../shared/schemas/live'
+
+// The facilitator makes a share link for the wall view; the token is shown this once.
+export default defineEventHandler(async (event) => {
+  const { exerciseId, user } = await requireLiveRole(event, ['facilitator'])
+  const { label } = await readValid(event, wallTokenSchema)
+  liveExercise(useDB(), exerciseId)
+  setResponseStatus(event, 201)
+  return createWallToken(exerciseId, label, user.id)
+})

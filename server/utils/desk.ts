@@ -1,0 +1,52 @@
+import { foldEvents, type Feed } from '../../shared/live/fold'
+import { injectState, phaseAt } from '../../shared/live/schedule'
+import { DRILL } from '../../shared/live/visibility'
+import type { LiveView } from '../../shared/live/types'
+
+/** The control desk's schedule: every inject (scenario and ad-hoc) with its state and who answered. */
+function schedule(exercise: LiveExercise, feed: Feed, t: number) {
+  const rows = injectRows(useDB(), exercise.id)
+  const answered = new Map<string, Set<string>>()
+  for (const r of feed.responses) answered.set(r.injectKey, (answered.get(r.injectKey) ?? new Set()).add(r.teamKey))
+  const defs: InjectDef[] = [
+    ...exercise.scenario.injects,
+    ...[...rows.values()].filter(r => r.definition).map(r => r.definition as unknown as InjectDef),
+  ]
+  return defs.map((def) => {
+    const row = rows.get(def.key)
+    const teamsAnswered = answered.get(def.key) ?? new Set<string>()
+    const deadline = def.decision ? Date.parse(def.decision.deadline) : null
+    return {
+      key: def.key, title: def.title, at: def.at, phase: def.phase, kind: def.kind, teams: def.teams, adhoc: !!def.adhoc,
+      contingency: def.contingency?.condition ?? null, deadline: def.decision?.deadline ?? null,
+      state: injectState({ at: Date.parse(def.at), deadline, teams: def.teams }, row?.status ?? null, teamsAnswered, t),
+      answered: Object.fromEntries(def.teams.map(k => [k, teamsAnswered.has(k)])),
+      releasedSeq: row?.releasedSeq ?? null, revision: row?.revision ?? 0, solutionKey: row?.solutionKey ?? null,
+    }
+  }).sort((a, b) => Date.parse(a.at) - Date.parse(b.at))
+}
+
+/**
+ * A desk's snapshot of a live exercise, by the reader's view: the clock, phase and current solution
+ * for everyone; a player gets its team's released injects (current body, revisions, its responses);
+ * evaluators all released traffic with expected actions, scores and observations; the facilitator
+ * also the whole schedule with states. Figures carry the drill marking (`drill`).
+ */
+export function liveSnapshot(exerciseId: string, view: LiveView) {
+  const exercise = liveExercise(useDB(), exerciseId)
+  const { clock, scenarioNow } = clockNow(exercise)
+  const feed = foldEvents(visibleEvents(exerciseId, view))
+  const { scenario } = exercise
+  const base = {
+    exercise: { id: exercise.id, title: exercise.title, status: exercise.status },
+    view: view.kind, teamKey: view.kind === 'player' ? view.teamKey : null,
+    clock, scenarioNow: new Date(scenarioNow).toISOString(), serverTime: Date.now(), lastSeq: latestSeq(exerciseId),
+    phase: phaseAt(scenario, scenarioNow), phases: scenario.phases, teams: scenario.teams,
+    currentSolution: feed.currentSolution, solutions: feed.solutions, drill: DRILL,
+    injects: feed.injects,
+  }
+  if (view.kind === 'player') return base
+  const staff = { ...base, scores: feed.scores, observations: feed.observations, criteria: scenario.criteria }
+  if (view.kind !== 'control') return staff
+  return { ...staff, schedule: schedule(exercise, feed, scenarioNow), held: feed.held }
+}

@@ -1,0 +1,155 @@
+import { and, asc, eq, gt, inArray, like, ne, or, sql } from 'drizzle-orm'
+import type { SQL } from 'drizzle-orm'
+import { scenarioTimeAt, clockBounds, type ClockBounds } from '../../shared/live/clock'
+import { canSee, rooms, sanitise, wallTypes } from '../../shared/live/visibility'
+import type { Audience, ClockState, EventDataMap, LiveEvent, LiveEventType, LiveView, StoredEvent } from '../../shared/live/types'
+import type { Scenario } from '../../shared/scenario/schema'
+import type { Exercise, Membership } from '../../shared/types/db'
+
+/** A Drizzle transaction on the one SQLite connection. */
+export type Tx = Parameters<Parameters<DB['transaction']>[0]>[0]
+
+export interface NewEvent<T extends LiveEventType = LiveEventType> {
+  type: T
+  audience: Audience
+  data: EventDataMap[T]
+  actorId?: string | null
+  idempotencyKey?: string
+  /** Defaults to the scenario time of the write. */
+  scenarioTime?: number
+}
+
+export type LiveExercise = Exercise & { scenario: Scenario }
+
+/** What a service sees inside `liveWrite`: the transaction, the exercise and its clock at the time of the write. */
+export interface LiveWriter {
+  tx: Tx
+  exercise: LiveExercise
+  clock: ClockState
+  bounds: ClockBounds
+  /** Wall time of the write, ms. */
+  now: number
+  /** Scenario time of the write, ms (held within the scenario window). */
+  scenarioNow: number
+  /** Appends an event with the next sequence number; it is emitted once the transaction commits. */
+  append: <T extends LiveEventType>(e: NewEvent<T>) => StoredEvent
+}
+
+/** An exercise with its frozen scenario; 404 when missing, 409 when it has no scenario. */
+export function liveExercise(db: DB | Tx, exerciseId: string): LiveExercise {
+  const exercise = db.select().from(schema.exercises).where(eq(schema.exercises.id, exerciseId)).get()
+  if (!exercise) throw createError({ statusCode: 404, message: 'No such exercise.' })
+  if (!exercise.scenario) throw createError({ statusCode: 409, message: 'This exercise has no scenario to play.' })
+  return exercise as LiveExercise
+}
+
+/** The reader view of a membership; an admin without a drill role reads as an evaluator. */
+export function viewOf(membership: Pick<Membership, 'role' | 'teamKey'> | null): LiveView {
+  if (!membership) return { kind: 'evaluator' }
+  if (membership.role === 'facilitator') return { kind: 'control' }
+  if (membership.role === 'player') return { kind: 'player', teamKey: membership.teamKey ?? '' }
+  return { kind: 'evaluator' }
+}
+
+/** The SQL condition for the events a view may read (the same rule as `canSee`). */
+export function audienceWhere(view: LiveView): SQL | undefined {
+  const { audience, type } = schema.exerciseEvents
+  switch (view.kind) {
+    case 'control': return undefined
+    case 'evaluator': return ne(audience, 'control')
+    case 'player': return or(eq(audience, 'all'), and(like(audience, 'teams:%'), sql`(',' || substr(${audience}, 7) || ',') like ${`%,${view.teamKey},%`}`))
+    case 'wall': return and(eq(audience, 'all'), inArray(type, wallTypes()))
+  }
+}
+
+function toStored(row: typeof schema.exerciseEvents.$inferSelect): StoredEvent {
+  return {
+    seq: row.seq, type: row.type as LiveEventType, wallTime: row.wallTime, scenarioTime: row.scenarioTime,
+    actorId: row.actorId, audience: row.audience as Audience, data: row.payload as unknown as StoredEvent['data'],
+  }
+}
+
+function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, scenarioTime: number): StoredEvent {
+  const { next } = tx.select({ next: sql<number>`coalesce(max(${schema.exerciseEvents.seq}), 0) + 1` })
+    .from(schema.exerciseEvents).where(eq(schema.exerciseEvents.exerciseId, exerciseId)).get()!
+  const row = tx.insert(schema.exerciseEvents).values({
+    exerciseId, seq: next, type: e.type, wallTime, scenarioTime, actorId: e.actorId ?? null, audience: e.audience,
+    payload: e.data as unknown as Record<string, unknown>, idempotencyKey: e.idempotencyKey ?? null,
+  }).returning().get()
+  return toStored(row)
+}
+
+/**
+ * Runs a write on a live exercise in one transaction: whatever `work` appends with `w.append` is
+ * committed with the change it records, then pushed to the rooms that may see it.
+ */
+export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T {
+  const appended: StoredEvent[] = []
+  let exercise: LiveExercise | undefined
+  const result = useDB().transaction((tx) => {
+    exercise = liveExercise(tx, exerciseId)
+    const clock = readClock(tx, exercise)
+    const bounds = clockBounds(exercise.scenario.clock)
+    const now = Date.now()
+    const scenarioNow = Math.min(scenarioTimeAt(clock, now), bounds.end)
+    const append = <E extends LiveEventType>(e: NewEvent<E>) => {
+      const stored = insertEvent(tx, exerciseId, e as NewEvent, now, e.scenarioTime ?? scenarioNow)
+      appended.push(stored)
+      return stored
+    }
+    return work({ tx, exercise, clock, bounds, now, scenarioNow, append })
+  })
+  if (exercise && appended.length) emitLive(exercise, appended)
+  return result
+}
+
+/** The event a caller already wrote with this idempotency key (null if none); 409 when it was another kind of write. */
+export function findIdempotent(tx: Tx, exerciseId: string, actorId: string, key: string, type: LiveEventType): StoredEvent | null {
+  const row = tx.select().from(schema.exerciseEvents).where(and(
+    eq(schema.exerciseEvents.exerciseId, exerciseId), eq(schema.exerciseEvents.actorId, actorId), eq(schema.exerciseEvents.idempotencyKey, key),
+  )).get()
+  if (!row) return null
+  if (row.type !== type) throw createError({ statusCode: 409, message: 'This idempotency key was already used for another write.', data: { issues: [{ path: 'idempotencyKey', message: 'already used' }] } })
+  return toStored(row)
+}
+
+/** Stored events of an exercise after `since` that a view may read, in sequence order. */
+export function storedEvents(exerciseId: string, view: LiveView, since = 0, limit?: number): StoredEvent[] {
+  const q = useDB().select().from(schema.exerciseEvents)
+    .where(and(eq(schema.exerciseEvents.exerciseId, exerciseId), gt(schema.exerciseEvents.seq, since), audienceWhere(view)))
+    .orderBy(asc(schema.exerciseEvents.seq))
+  return (limit ? q.limit(limit).all() : q.all()).map(toStored)
+}
+
+/** Events after `since` as a view receives them (sanitised), in sequence order. */
+export function visibleEvents(exerciseId: string, view: LiveView, since = 0, limit?: number): LiveEvent[] {
+  return storedEvents(exerciseId, view, since, limit).map(e => sanitise(e, view)).filter((e): e is LiveEvent => e !== null)
+}
+
+/** The latest sequence number of an exercise (0 before the first event). */
+export function latestSeq(exerciseId: string): number {
+  return useDB().select({ max: sql<number>`coalesce(max(${schema.exerciseEvents.seq}), 0)` })
+    .from(schema.exerciseEvents).where(eq(schema.exerciseEvents.exerciseId, exerciseId)).get()!.max
+}
+
+/**
+ * Pushes committed events to the exercise's rooms as message `event`, each room getting its own
+ * sanitised copy: control, evaluators (without the facilitator, who has control), the teams that
+ * may see it, and the wall.
+ */
+export function emitLive(exercise: LiveExercise, events: readonly StoredEvent[]): void {
+  const io = useIO()
+  if (!io) return
+  const id = exercise.id
+  const teams = exercise.scenario.teams.map(t => t.key)
+  for (const e of events) {
+    const control = sanitise(e, { kind: 'control' })
+    if (control) io.to(rooms.control(id)).emit('event', control)
+    const evaluator = sanitise(e, { kind: 'evaluator' })
+    if (evaluator) io.to(rooms.evaluators(id)).except(rooms.control(id)).emit('event', evaluator)
+    const seeing = teams.filter(teamKey => canSee({ kind: 'player', teamKey }, e.audience, e.type))
+    if (seeing.length) io.to(seeing.map(t => rooms.team(id, t))).emit('event', sanitise(e, { kind: 'player', teamKey: seeing[0]! }))
+    const wall = sanitise(e, { kind: 'wall' })
+    if (wall) io.to(rooms.wall(id)).emit('event', wall)
+  }
+}

@@ -1,0 +1,211 @@
+import { createHash, randomBytes } from 'node:crypto'
+import { and, asc, eq } from 'drizzle-orm'
+import { assessSolution } from '../../shared/hazard/assess'
+import type { Assessment } from '../../shared/hazard/types'
+import { assessmentHeadline, hasHazardFields, renderBody } from '../../shared/live/headline'
+import { phaseAt } from '../../shared/live/schedule'
+import { DRILL, teamsAudience } from '../../shared/live/visibility'
+import type { InjectData, SolutionPublishedData } from '../../shared/live/types'
+import { BUILT_IN_INJECT_KINDS } from '../../shared/scenario/constants'
+import { validateHazardFields } from '../../shared/scenario/fields'
+import type { Inject } from '../../shared/scenario/schema'
+
+/** Samples of every published assessment (hazard-model.md: 20 000 keeps the percentiles steady). */
+export const PUBLISH_SAMPLES = 20_000
+
+/** An inject as the live services use it: a scenario inject, or an ad-hoc message's definition. */
+export type InjectDef = Pick<Inject, 'key' | 'at' | 'kind' | 'teams' | 'title' | 'body'> & Partial<Pick<Inject, 'solution' | 'decision' | 'expectedActions' | 'contingency' | 'attachments'>> & { phase: string | null; adhoc?: boolean }
+
+type InjectRow = typeof schema.exerciseInjects.$inferSelect
+interface Published { key: string; seq: number }
+
+const conflict = (message: string, data?: Record<string, unknown>) => createError({ statusCode: 409, message, data })
+const notFound = (message: string) => createError({ statusCode: 404, message })
+
+/** The deterministic Monte Carlo seed of a solution in an exercise (31 bits of SHA-256 of "<exercise id>:<solution key>"). */
+export function solutionSeed(exerciseId: string, solutionKey: string): number {
+  return createHash('sha256').update(`${exerciseId}:${solutionKey}`).digest().readUInt32BE(0) >>> 1
+}
+
+/** An inject of the exercise by key: the scenario's, or an ad-hoc message's stored definition. */
+export function injectDef(exercise: LiveExercise, key: string, row?: InjectRow | null): InjectDef | null {
+  if (row?.definition) return row.definition as unknown as InjectDef
+  return exercise.scenario.injects.find(i => i.key === key) ?? null
+}
+
+/** Published solutions of an exercise in publication order. */
+export function publishedSolutions(db: DB | Tx, exerciseId: string): Published[] {
+  return db.select({ key: schema.exerciseSolutions.solutionKey, seq: schema.exerciseSolutions.seq }).from(schema.exerciseSolutions)
+    .where(eq(schema.exerciseSolutions.exerciseId, exerciseId)).orderBy(asc(schema.exerciseSolutions.seq)).all()
+}
+
+// Assessments are immutable once published; keep the most recent ones (≈ 60 kB each) in memory.
+const assessments = new Map<string, Assessment>()
+const MAX_CACHED = 64
+function remember(key: string, a: Assessment) {
+  assessments.set(key, a)
+  if (assessments.size > MAX_CACHED) assessments.delete(assessments.keys().next().value!)
+}
+
+/** The stored assessment of a published solution (read from its event, kept in memory: it never changes). */
+export function assessmentAt(db: DB | Tx, exerciseId: string, seq: number): Assessment {
+  const key = `${exerciseId}:${seq}`
+  let a = assessments.get(key)
+  if (!a) {
+    const row = db.select({ payload: schema.exerciseEvents.payload }).from(schema.exerciseEvents)
+      .where(and(eq(schema.exerciseEvents.exerciseId, exerciseId), eq(schema.exerciseEvents.seq, seq))).get()
+    if (!row) throw new Error(`no event ${seq} in exercise ${exerciseId}`)
+    a = (row.payload as unknown as SolutionPublishedData).assessment
+    remember(key, a)
+  }
+  return a
+}
+
+/** The solution an inject shows: the one it presents (once published), else the latest published. */
+function solutionFor(def: InjectDef, published: readonly Published[]): Published | null {
+  return (def.solution && published.find(p => p.key === def.solution)) || published.at(-1) || null
+}
+
+function render(db: DB | Tx, exerciseId: string, def: InjectDef, published: readonly Published[]) {
+  if (!hasHazardFields(def.body)) return { body: renderBody(def.body, null), solutionKey: null }
+  const s = solutionFor(def, published)
+  return { body: renderBody(def.body, s && assessmentAt(db, exerciseId, s.seq)), solutionKey: s?.key ?? null }
+}
+
+function attachmentRefs(tx: Tx, exerciseId: string, def: InjectDef) {
+  if (!def.attachments?.length) return undefined
+  const files = tx.select({ id: schema.exerciseAttachments.id, path: schema.exerciseAttachments.path }).from(schema.exerciseAttachments)
+    .where(eq(schema.exerciseAttachments.exerciseId, exerciseId)).all()
+  return def.attachments.map(a => ({ ...a, id: files.find(f => f.path === a.path)?.id ?? null }))
+}
+
+function injectData(w: LiveWriter, def: InjectDef, opts: { manual: boolean; wasHeld: boolean }): InjectData {
+  const { body, solutionKey } = render(w.tx, w.exercise.id, def, publishedSolutions(w.tx, w.exercise.id))
+  const data: InjectData = {
+    key: def.key, adhoc: !!def.adhoc, title: def.title, kind: def.kind, phase: def.phase, teams: def.teams, at: def.at,
+    body, solutionKey, revision: 0, manual: opts.manual, wasHeld: opts.wasHeld, drill: DRILL,
+  }
+  if (def.decision) data.decision = def.decision
+  const attachments = attachmentRefs(w.tx, w.exercise.id, def)
+  if (attachments) data.attachments = attachments
+  if (def.expectedActions) data.expectedActions = def.expectedActions
+  if (def.contingency) data.contingency = def.contingency
+  return data
+}
+
+/**
+ * Releases a scenario inject to its teams, exactly once: by the scheduler when it falls due, or by
+ * hand at any time (the only way for contingency and held injects). Already released → 409 with its seq.
+ */
+export function releaseInject(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
+  return liveWrite(exerciseId, (w) => {
+    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
+    const def = injectDef(w.exercise, key)
+    if (!def) throw notFound('No such inject in this exercise.')
+    const row = w.tx.select().from(schema.exerciseInjects)
+      .where(and(eq(schema.exerciseInjects.exerciseId, exerciseId), eq(schema.exerciseInjects.injectKey, key))).get()
+    if (row?.status === 'released') throw conflict('This inject was already released.', { seq: row.releasedSeq })
+    const data = injectData(w, def, { manual: opts.manual, wasHeld: row?.status === 'held' })
+    const event = w.append({ type: 'inject.released', audience: teamsAudience(def.teams, w.exercise.scenario.teams.map(t => t.key)), actorId: opts.actorId, data })
+    const values = { status: 'released' as const, releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey, revision: 0 }
+    if (row) w.tx.update(schema.exerciseInjects).set(values).where(and(eq(schema.exerciseInjects.id, row.id), eq(schema.exerciseInjects.status, 'held'))).run()
+    else w.tx.insert(schema.exerciseInjects).values({ exerciseId, injectKey: key, ...values }).run()
+    return event
+  })
+}
+
+/** Holds a scenario inject so that the scheduler skips it; holding a held one changes nothing. */
+export function holdInject(exerciseId: string, key: string, actorId: string) {
+  return liveWrite(exerciseId, (w) => {
+    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
+    const def = injectDef(w.exercise, key)
+    if (!def) throw notFound('No such inject in this exercise.')
+    const row = w.tx.select().from(schema.exerciseInjects)
+      .where(and(eq(schema.exerciseInjects.exerciseId, exerciseId), eq(schema.exerciseInjects.injectKey, key))).get()
+    if (row?.status === 'released') throw conflict('This inject was already released.', { seq: row.releasedSeq })
+    if (row) return { created: false }
+    w.tx.insert(schema.exerciseInjects).values({ exerciseId, injectKey: key, status: 'held' }).run()
+    w.append({ type: 'inject.held', audience: 'control', actorId, data: { key, title: def.title, at: def.at, teams: def.teams } })
+    return { created: true }
+  })
+}
+
+/** Checks an ad-hoc message against the exercise: known teams and kind, valid hazard fields (400 with field issues). */
+function checkMessage(exercise: LiveExercise, input: { teams: string[]; body: string; kind: string }) {
+  const { scenario } = exercise
+  const teams = new Set(scenario.teams.map(t => t.key))
+  const kinds = new Set<string>([...BUILT_IN_INJECT_KINDS, ...(scenario.injectKinds ?? [])])
+  const issues = [
+    ...input.teams.flatMap((t, i) => (teams.has(t) ? [] : [{ path: `teams[${i}]`, message: `unknown team "${t}"` }])),
+    ...(kinds.has(input.kind) ? [] : [{ path: 'kind', message: `unknown kind "${input.kind}"` }]),
+    ...validateHazardFields(input.body, scenario.sites.map(s => s.id)).map(i => ({ path: 'body', message: `${i.line}:${i.column} ${i.message}` })),
+  ]
+  if (issues.length) throw createError({ statusCode: 400, message: 'Invalid request body: check the listed fields.', data: { issues } })
+}
+
+/** Sends an ad-hoc message from the facilitator, recorded and shown like an inject (`message.sent`). */
+export function sendMessage(exerciseId: string, input: { teams: string[]; title: string; body: string; kind: string; idempotencyKey: string }, actorId: string) {
+  return liveWrite(exerciseId, (w) => {
+    const again = findIdempotent(w.tx, exerciseId, actorId, input.idempotencyKey, 'message.sent')
+    if (again) return { event: again, created: false }
+    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
+    checkMessage(w.exercise, input)
+    const def: InjectDef = {
+      key: `msg-${randomBytes(5).toString('hex')}`, adhoc: true, at: new Date(w.scenarioNow).toISOString(),
+      phase: phaseAt(w.exercise.scenario, w.scenarioNow), kind: input.kind, teams: [...new Set(input.teams)], title: input.title, body: input.body,
+    }
+    const data = injectData(w, def, { manual: true, wasHeld: false })
+    const event = w.append({ type: 'message.sent', audience: teamsAudience(def.teams, w.exercise.scenario.teams.map(t => t.key)), actorId, idempotencyKey: input.idempotencyKey, data })
+    w.tx.insert(schema.exerciseInjects).values({
+      exerciseId, injectKey: def.key, status: 'released', definition: def as unknown as Record<string, unknown>,
+      releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey,
+    }).run()
+    return { event, created: true }
+  })
+}
+
+/** Re-renders released injects against the published solutions; appends `inject.revised` where the text changed. */
+function reviseReleased(w: LiveWriter, published: readonly Published[]) {
+  const allTeams = w.exercise.scenario.teams.map(t => t.key)
+  const rows = w.tx.select().from(schema.exerciseInjects)
+    .where(and(eq(schema.exerciseInjects.exerciseId, w.exercise.id), eq(schema.exerciseInjects.status, 'released'))).orderBy(asc(schema.exerciseInjects.releasedSeq)).all()
+  for (const row of rows) {
+    const def = injectDef(w.exercise, row.injectKey, row)
+    if (!def || !hasHazardFields(def.body)) continue
+    const next = render(w.tx, w.exercise.id, def, published)
+    if (next.solutionKey === row.solutionKey || next.body === row.body) continue
+    const revision = row.revision + 1
+    w.tx.update(schema.exerciseInjects).set({ body: next.body, solutionKey: next.solutionKey, revision }).where(eq(schema.exerciseInjects.id, row.id)).run()
+    w.append({
+      type: 'inject.revised', audience: teamsAudience(def.teams, allTeams),
+      data: { key: row.injectKey, teams: def.teams, revision, body: next.body, solutionKey: next.solutionKey, previousSolutionKey: row.solutionKey, drill: DRILL },
+    })
+  }
+}
+
+/**
+ * Publishes an orbit solution: runs the hazard model (PUBLISH_SAMPLES samples, seed from the
+ * exercise and solution), stores the assessment on the `solution.published` event, and revises the
+ * released injects whose figures change. Exactly once per solution; again → 409.
+ */
+export function publishSolution(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
+  const exercise = liveExercise(useDB(), exerciseId)
+  const entry = exercise.scenario.solutions.find(s => s.key === key)
+  if (!entry) throw notFound('No such solution in this exercise.')
+  const isPublished = (db: DB | Tx) => publishedSolutions(db, exerciseId).some(p => p.key === key)
+  if (isPublished(useDB())) throw conflict('This solution was already published.')
+  const seed = solutionSeed(exerciseId, key)
+  const assessment = assessSolution(entry.solution, exercise.scenario.sites, { samples: PUBLISH_SAMPLES, seed })
+  return liveWrite(exerciseId, (w) => {
+    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
+    if (isPublished(w.tx)) throw conflict('This solution was already published.')
+    const event = w.append({
+      type: 'solution.published', audience: 'all', actorId: opts.actorId,
+      data: { key, label: entry.label, releaseAt: entry.releaseAt, manual: opts.manual, samples: PUBLISH_SAMPLES, seed, solution: entry.solution, assessment, headline: assessmentHeadline(assessment), drill: DRILL },
+    })
+    w.tx.insert(schema.exerciseSolutions).values({ exerciseId, solutionKey: key, seq: event.seq }).run()
+    remember(`${exerciseId}:${event.seq}`, assessment)
+    reviseReleased(w, publishedSolutions(w.tx, exerciseId))
+    return event
+  })
+}

@@ -1,0 +1,71 @@
+/** What the map draws from an assessment: blast rings at the median case and run-up classes of sites. */
+import { overpressureRadiusM } from '../hazard/blast'
+import { THRESHOLDS, type Assessment, type SiteAssessment, type ThresholdKey } from '../hazard/types'
+
+/** The single burst the map's rings and the curves are drawn for: the median of the assessment. */
+export interface MedianBlastCase {
+  /** Blast energy, Mt TNT. */
+  energyMt: number
+  /** Burst altitude, m (0 for a surface burst). */
+  burstAltitudeM: number
+  regime: 'airburst' | 'surface'
+}
+
+export type BlastInputs = Pick<Assessment, 'energyMt' | 'surfaceEnergyMt' | 'airburstProbability' | 'burstAltitudeKm'>
+
+/**
+ * The median case: an airburst at the median burst altitude when most realisations burst in the air,
+ * otherwise a surface burst whose blast energy is the larger of the energy lost in the air and the
+ * energy at the surface (as the engine does per realisation, after the EIEP program).
+ */
+export function medianBlastCase(a: BlastInputs): MedianBlastCase {
+  if (a.airburstProbability >= 0.5 && a.burstAltitudeKm) {
+    return { energyMt: a.energyMt.p50, burstAltitudeM: a.burstAltitudeKm.p50 * 1000, regime: 'airburst' }
+  }
+  const surface = a.surfaceEnergyMt.p50
+  return { energyMt: Math.max(surface, a.energyMt.p50 - surface), burstAltitudeM: 0, regime: 'surface' }
+}
+
+/** Overpressure thresholds drawn as rings by default: windows, wood-frame houses collapse, multistorey collapse. */
+export const DEFAULT_RING_KEYS: readonly ThresholdKey[] = ['windows', 'houseCollapse', 'multistoreyCollapse']
+
+export interface BlastRing {
+  key: ThresholdKey
+  label: string
+  thresholdKPa: number
+  radiusKm: number
+}
+
+/**
+ * Ground radii at which the peak overpressure of the median case falls to each threshold, from the
+ * engine's law (Collins et al. 2005, `overpressureRadiusM`). Thresholds never reached are left out.
+ */
+export function blastRings(a: BlastInputs, keys: readonly ThresholdKey[] = DEFAULT_RING_KEYS): { basis: MedianBlastCase; rings: BlastRing[] } {
+  const basis = medianBlastCase(a)
+  const rings: BlastRing[] = []
+  for (const key of keys) {
+    const t = THRESHOLDS.find(x => x.key === key)
+    if (!t || t.kind !== 'overpressure') continue
+    const r = Number.isFinite(basis.energyMt) ? overpressureRadiusM(basis.energyMt, basis.burstAltitudeM, t.value) : 0
+    if (r > 0) rings.push({ key, label: t.label, thresholdKPa: t.value / 1000, radiusKm: r / 1000 })
+  }
+  return { basis, rings }
+}
+
+/** How a site is marked for the tsunami: by its 95th-percentile run-up (thresholds of the model: 1 m, 3 m). */
+export type RunUpClass = 'inland' | 'none' | 'low' | 'moderate' | 'high'
+
+export const RUN_UP_CLASSES: ReadonlyArray<{ key: RunUpClass; label: string }> = [
+  { key: 'high', label: 'Run-up 3 m or more (95th percentile)' },
+  { key: 'moderate', label: 'Run-up 1–3 m (95th percentile)' },
+  { key: 'low', label: 'Run-up under 1 m (95th percentile)' },
+  { key: 'none', label: 'Coastal, no tsunami in these figures' },
+  { key: 'inland', label: 'Inland site (no tsunami figures)' },
+]
+
+export function runUpClass(s: Pick<SiteAssessment, 'coastal' | 'runUpM'>): RunUpClass {
+  if (s.coastal === false) return 'inland'
+  const p95 = s.runUpM.p95
+  if (!(p95 > 0)) return 'none'
+  return p95 >= 3 ? 'high' : p95 >= 1 ? 'moderate' : 'low'
+}

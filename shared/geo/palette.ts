@@ -1,0 +1,65 @@
+/**
+ * Map colours for the SVG renderer, taken from Brinkwater's palette (tailwind.config.ts): water in tide,
+ * land in abyss, the corridor in flare, blast in coral. Colour is always paired with a shape or a dash.
+ */
+import type { RunUpClass } from './overlays'
+import type { PointKind } from './scene'
+
+export interface MapPalette {
+  sea: string; land: string; coast: string; borders: string; graticule: string
+  corridor: string; corridorEdge: string; earlier: string; text: string; halo: string
+  points: Record<PointKind, string>
+  ring: string
+  site: Record<RunUpClass, string>
+  siteEdge: string
+  marking: string; markingText: string; legendBg: string
+}
+
+export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
+  light: {
+    sea: '#d6f1fb', land: '#f3f6f8', coast: '#7189a0', borders: '#9fb1c1', graticule: '#74cdee',
+    corridor: '#f07b10', corridorEdge: '#ab420b', earlier: '#526c84', text: '#17202c', halo: '#ffffff',
+    points: { sea: '#0d5c81', land: '#c22f45', air: '#17202c' },
+    ring: '#9f2339',
+    site: { high: '#c22f45', moderate: '#fd9a2e', low: '#74cdee', none: '#ffffff', inland: '#7189a0' },
+    siteEdge: '#0d131b',
+    marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#ffffff',
+  },
+  dark: {
+    sea: '#0b293c', land: '#233041', coast: '#7189a0', borders: '#526c84', graticule: '#13405a',
+    corridor: '#fd9a2e', corridorEdge: '#ffbd5e', earlier: '#9fb1c1', text: '#f3f6f8', halo: '#0d131b',
+    points: { sea: '#74cdee', land: '#f2707a', air: '#f3f6f8' },
+    ring: '#f2707a',
+    site: { high: '#e0475a', moderate: '#fd9a2e', low: '#74cdee', none: '#0d131b', inland: '#9fb1c1' },
+    siteEdge: '#f3f6f8',
+    marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#17202c',
+  },
+}
+
+/** Dash pattern of each blast ring, outermost (least damage) finest. */
+export const RING_DASH: Record<string, string> = { windows: '2 4', houseDamage: '6 4', houseCollapse: '8 5', multistoreyCracked: '10 4', multistoreyCollapse: '', bridgeCollapse: '', steelFrameCollapse: '' }
+
+/**
+ * The marker of a site: triangle for run-up of 3 m or more, diamond for 1–3 m, circle below 1 m,
+ * hollow circle for none, square inland. `r` is the half-size in pixels.
+ */
+export function siteGlyph(tone: RunUpClass, x: number, y: number, r: number): string {
+  const f = (v: number) => Math.round(v * 10) / 10
+  switch (tone) {
+    case 'high': return `M${f(x)} ${f(y - r * 1.25)}L${f(x + r * 1.15)} ${f(y + r * 0.85)}L${f(x - r * 1.15)} ${f(y + r * 0.85)}Z`
+    case 'moderate': return `M${f(x)} ${f(y - r * 1.2)}L${f(x + r * 1.2)} ${f(y)}L${f(x)} ${f(y + r * 1.2)}L${f(x - r * 1.2)} ${f(y)}Z`
+    case 'inland': return `M${f(x - r * 0.85)} ${f(y - r * 0.85)}h${f(r * 1.7)}v${f(r * 1.7)}h${f(-r * 1.7)}Z`
+    default: return `M${f(x - r)} ${f(y)}a${r} ${r} 0 1 0 ${f(2 * r)} 0a${r} ${r} 0 1 0 ${f(-2 * r)} 0Z`
+  }
+}
+
+/** Chart colours (ECharts options) from the same palette, per theme. */
+export interface ChartPalette {
+  text: string; muted: string; axis: string; split: string
+  primary: string; secondary: string; danger: string; band: string; background: string
+}
+
+export const CHART_PALETTES: Record<'light' | 'dark', ChartPalette> = {
+  light: { text: '#233041', muted: '#526c84', axis: '#9fb1c1', split: '#e3e9ee', primary: '#0b73a0', secondary: '#d25d08', danger: '#c22f45', band: 'rgba(19, 145, 195, 0.2)', background: '#ffffff' },
+  dark: { text: '#e3e9ee', muted: '#9fb1c1', axis: '#526c84', split: '#233041', primary: '#36afdf', secondary: '#fd9a2e', danger: '#f2707a', band: 'rgba(54, 175, 223, 0.25)', background: '#17202c' },
+}

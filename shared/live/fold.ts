@@ -1,0 +1,105 @@
+/**
+ * Folds a reader's events (already sanitised for them) into what a desk shows: released injects
+ * with their current body and revision history, responses, solutions, scores and observations.
+ * The server builds its snapshots with it and the client store derives the same from its feed.
+ */
+import type {
+  ClockChangedData, ClockDto, Headline, InjectData, InjectHeldData, InjectRevisedData, LiveEvent,
+  ObservationData, ResponseData, ScoreData, SolutionPublishedData, WallSolutionData,
+} from './types'
+
+interface Stamp { seq: number; scenarioTime: string; wallTime: string }
+
+export interface FeedRevision { revision: number; body: string; solutionKey: string | null; seq: number; scenarioTime: string }
+export type FeedResponse = ResponseData & Stamp
+export type FeedScore = ScoreData & Stamp
+export type FeedObservation = ObservationData & Stamp
+
+export interface FeedInject extends InjectData {
+  releasedSeq: number
+  /** Scenario time of the release (ISO). */
+  releasedAt: string
+  /** Every rendering, the release first; the last is `body`. */
+  revisions: FeedRevision[]
+  responses: FeedResponse[]
+}
+
+export interface FeedSolution { key: string; label: string; seq: number; publishedAt: string; headline: Headline }
+
+export interface Feed {
+  injects: FeedInject[]
+  solutions: FeedSolution[]
+  /** The latest published solution: the one injects without a pinned solution show. */
+  currentSolution: FeedSolution | null
+  clock: ClockDto | null
+  responses: FeedResponse[]
+  scores: FeedScore[]
+  observations: FeedObservation[]
+  held: Array<InjectHeldData & Stamp>
+  lastSeq: number
+}
+
+export function emptyFeed(): Feed {
+  return { injects: [], solutions: [], currentSolution: null, clock: null, responses: [], scores: [], observations: [], held: [], lastSeq: 0 }
+}
+
+/** Folds events (in any order; duplicates by seq are ignored) into a feed. */
+export function foldEvents(events: readonly LiveEvent[]): Feed {
+  const feed = emptyFeed()
+  const byKey = new Map<string, FeedInject>()
+  const seen = new Set<number>()
+  for (const e of [...events].sort((a, b) => a.seq - b.seq)) {
+    if (seen.has(e.seq)) continue
+    seen.add(e.seq)
+    feed.lastSeq = e.seq
+    const stamp: Stamp = { seq: e.seq, scenarioTime: e.scenarioTime, wallTime: e.wallTime }
+    switch (e.type) {
+      case 'clock.changed':
+        feed.clock = (e.data as ClockChangedData).clock
+        break
+      case 'solution.published': {
+        const d = e.data as SolutionPublishedData | WallSolutionData
+        const s = { key: d.key, label: d.label, seq: e.seq, publishedAt: e.scenarioTime, headline: d.headline }
+        feed.solutions.push(s)
+        feed.currentSolution = s
+        break
+      }
+      case 'inject.released':
+      case 'message.sent': {
+        const d = e.data as InjectData
+        const item: FeedInject = {
+          ...d, releasedSeq: e.seq, releasedAt: e.scenarioTime, responses: [],
+          revisions: [{ revision: d.revision, body: d.body, solutionKey: d.solutionKey, seq: e.seq, scenarioTime: e.scenarioTime }],
+        }
+        byKey.set(d.key, item)
+        feed.injects.push(item)
+        feed.held = feed.held.filter(h => h.key !== d.key)
+        break
+      }
+      case 'inject.revised': {
+        const d = e.data as InjectRevisedData
+        const item = byKey.get(d.key)
+        if (!item) break
+        item.revisions.push({ revision: d.revision, body: d.body, solutionKey: d.solutionKey, seq: e.seq, scenarioTime: e.scenarioTime })
+        Object.assign(item, { body: d.body, revision: d.revision, solutionKey: d.solutionKey })
+        break
+      }
+      case 'inject.held':
+        feed.held.push({ ...(e.data as InjectHeldData), ...stamp })
+        break
+      case 'response.submitted': {
+        const r = { ...(e.data as ResponseData), ...stamp }
+        feed.responses.push(r)
+        byKey.get(r.injectKey)?.responses.push(r)
+        break
+      }
+      case 'score.recorded':
+        feed.scores.push({ ...(e.data as ScoreData), ...stamp })
+        break
+      case 'observation.recorded':
+        feed.observations.push({ ...(e.data as ObservationData), ...stamp })
+        break
+    }
+  }
+  return feed
+}

@@ -1,0 +1,44 @@
+import type { Assessment } from '../hazard/types'
+import { findHazardFields, renderHazardFields } from '../scenario/fields'
+import type { Headline } from './types'
+import { DRILL } from './visibility'
+
+const fill = (a: Assessment, field: string) => renderHazardFields(`{{ ${field} }}`, a)
+
+/** Headline figures of an assessment for desks and the wall, formatted as inject text formats them. */
+export function assessmentHeadline(a: Assessment): Headline {
+  return {
+    impactProbability: a.impactProbability, torino: a.torino, palermo: a.palermo,
+    airburstProbability: a.airburstProbability, tsunamiProbability: a.tsunamiProbability,
+    diameterM: a.diameterM, energyMt: a.energyMt,
+    text: {
+      impactProbability: fill(a, 'impactProbability'), odds: fill(a, 'impactProbability | odds'),
+      torino: fill(a, 'torino'), palermo: fill(a, 'palermo'), diameterM: fill(a, 'diameterM'), energyMt: fill(a, 'energyMt'),
+    },
+    drill: DRILL,
+  }
+}
+
+/** What a hazard field shows while no orbit solution has been published. */
+export const NO_SOLUTION_YET = 'n/a (no orbit solution published yet)'
+
+/** True when a text quotes hazard fields. */
+export function hasHazardFields(text: string): boolean {
+  return findHazardFields(text).length > 0
+}
+
+/**
+ * Fills the hazard fields of an inject body from an assessment, or with NO_SOLUTION_YET when there
+ * is none (scenario checks forbid fields before the first solution, but a jump or an early release
+ * can get there first).
+ */
+export function renderBody(text: string, assessment: Assessment | null): string {
+  if (assessment) return renderHazardFields(text, assessment)
+  let out = ''
+  let from = 0
+  for (const f of findHazardFields(text)) {
+    out += text.slice(from, f.start) + NO_SOLUTION_YET
+    from = f.end
+  }
+  return (out + text.slice(from)).replaceAll('\\{{', '{{')
+}

@@ -1,0 +1,187 @@
+/** Types of the live exercise: the clock, the event record as clients receive it, and its payloads. */
+import type { Assessment, Percentiles } from '../hazard/types'
+import type { OrbitSolution } from '../hazard/schema'
+import type { Decision } from '../scenario/schema'
+
+export type ExerciseStatus = 'planned' | 'running' | 'paused' | 'ended'
+
+/** The stored clock mapping; times in ms since the epoch, factor = scenario ms per wall ms. */
+export interface ClockState {
+  wallAnchor: number
+  scenarioAnchor: number
+  factor: number
+  paused: boolean
+}
+
+/** The clock as the API sends it (ISO times). Derive the scenario time with `scenarioTimeAt`. */
+export interface ClockDto {
+  status: ExerciseStatus
+  paused: boolean
+  factor: number
+  wallAnchor: string
+  scenarioAnchor: string
+  scenarioStart: string
+  scenarioEnd: string
+}
+
+export type ClockActionName = 'start' | 'pause' | 'resume' | 'speed' | 'jump' | 'end'
+
+/**
+ * Who may read an event: `all`; `control` (facilitator only); `evaluators` (evaluators, analysts and
+ * the facilitator); `teams:<k1>,<k2>` (players of those teams, and all staff).
+ */
+export type Audience = 'all' | 'control' | 'evaluators' | `teams:${string}`
+
+/** What one reader sees: decides the audience filter and the sanitising of payloads. */
+export type LiveView =
+  | { kind: 'control' }
+  | { kind: 'evaluator' }
+  | { kind: 'player'; teamKey: string }
+  | { kind: 'wall' }
+
+/** The drill marking and caution that travel with every hazard figure. */
+export interface DrillFlag { marking: string; caution: string }
+
+/** Headline figures of an assessment, raw and formatted as inject text formats them. */
+export interface Headline {
+  impactProbability: number
+  torino: number
+  palermo: number
+  airburstProbability: number
+  tsunamiProbability: number
+  diameterM: Percentiles
+  energyMt: Percentiles
+  text: { impactProbability: string; odds: string; torino: string; palermo: string; diameterM: string; energyMt: string }
+  drill: DrillFlag
+}
+
+export interface ClockChangedData {
+  action: ClockActionName | 'auto-pause'
+  clock: ClockDto
+  /** Scenario time before the change (ISO), for jumps. */
+  from?: string
+}
+
+export interface SolutionPublishedData {
+  key: string
+  label: string
+  releaseAt: string
+  manual: boolean
+  samples: number
+  seed: number
+  solution: OrbitSolution
+  assessment: Assessment
+  headline: Headline
+  drill: DrillFlag
+}
+
+/** The wall's part of a publication: headline and map, no full assessment. */
+export interface WallSolutionData {
+  key: string
+  label: string
+  headline: Headline
+  corridor: OrbitSolution['corridor']
+  impactPoints: Assessment['impactPoints']
+  drill: DrillFlag
+}
+
+export interface InjectAttachmentRef { name: string; path: string; id: string | null }
+
+/** A released inject or ad-hoc message; `expectedActions` and `contingency` never reach players. */
+export interface InjectData {
+  key: string
+  adhoc: boolean
+  title: string
+  kind: string
+  phase: string | null
+  teams: string[]
+  /** Scheduled scenario time (ISO); for messages, when it was sent. */
+  at: string
+  /** The body with hazard fields filled in from `solutionKey`'s assessment. */
+  body: string
+  solutionKey: string | null
+  revision: number
+  manual: boolean
+  wasHeld: boolean
+  decision?: Decision
+  attachments?: InjectAttachmentRef[]
+  expectedActions?: string[]
+  contingency?: { condition: string }
+  drill: DrillFlag
+}
+
+export interface InjectRevisedData {
+  key: string
+  teams: string[]
+  revision: number
+  body: string
+  solutionKey: string | null
+  previousSolutionKey: string | null
+  drill: DrillFlag
+}
+
+export interface InjectHeldData { key: string; title: string; at: string; teams: string[] }
+
+export interface PersonRef { id: string; name: string }
+
+export interface ResponseData {
+  id: string
+  injectKey: string
+  teamKey: string
+  choice: string | null
+  text: string
+  /** Submitted after the decision deadline (scenario time). */
+  late: boolean
+  by: PersonRef
+}
+
+export type Rating = 'P' | 'S' | 'M' | 'U'
+
+export interface ScoreData { id: string; criterionKey: string; taskKey: string; rating: Rating; note: string; by: PersonRef }
+
+export interface ObservationData { id: string; text: string; injectKey: string | null; teamKey: string | null; by: PersonRef }
+
+/** Payload by event type. */
+export interface EventDataMap {
+  'clock.changed': ClockChangedData
+  'solution.published': SolutionPublishedData
+  'inject.released': InjectData
+  'message.sent': InjectData
+  'inject.revised': InjectRevisedData
+  'inject.held': InjectHeldData
+  'response.submitted': ResponseData
+  'score.recorded': ScoreData
+  'observation.recorded': ObservationData
+}
+export type LiveEventType = keyof EventDataMap
+
+/** One event as a reader receives it (socket message `event`, GET …/events). */
+export interface LiveEvent<T extends LiveEventType = LiveEventType> {
+  seq: number
+  type: T
+  wallTime: string
+  scenarioTime: string
+  data: EventDataMap[T] | WallSolutionData
+}
+
+/** An event as stored: full payload and its audience. */
+export interface StoredEvent {
+  seq: number
+  type: LiveEventType
+  wallTime: number
+  scenarioTime: number
+  actorId: string | null
+  audience: Audience
+  data: EventDataMap[LiveEventType]
+}
+
+/** Sent on the socket after the replay of missed events: who you are here and the clock now. */
+export interface LiveReady {
+  exerciseId: string
+  view: LiveView['kind']
+  teamKey: string | null
+  clock: ClockDto
+  /** The latest sequence number of the exercise (the replay covered everything up to it). */
+  lastSeq: number
+  serverTime: number
+}

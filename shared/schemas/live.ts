@@ -1,0 +1,75 @@
+/** Request bodies, params and queries of the live exercise routes, and the socket handshake. */
+import { z } from 'zod'
+import { keySchema } from '../scenario/schema'
+import { scenarioTimeSchema } from '../scenario/time'
+import { MAX_FACTOR, MIN_FACTOR } from '../live/clock'
+
+const uuid = z.string().uuid('Not a valid id.')
+
+/** A client's key for a write it may retry (e.g. crypto.randomUUID()). */
+export const idempotencyKeySchema = z.string().regex(/^[\w.:-]{8,128}$/, '8 to 128 letters, digits, "-", "_", "." or ":"')
+
+export const injectParamsSchema = z.object({ id: uuid, key: keySchema })
+export const solutionParamsSchema = z.object({ id: uuid, key: keySchema })
+export const wallTokenParamsSchema = z.object({ id: uuid, tokenId: uuid })
+export const wallParamsSchema = z.object({ token: z.string().regex(/^[\w-]{43}$/, 'Not a valid link.') })
+
+const factorSchema = z.number().min(MIN_FACTOR, `at least ${MIN_FACTOR} (real time)`).max(MAX_FACTOR, `at most ${MAX_FACTOR}`)
+
+export const clockActionSchema = z.object({
+  action: z.enum(['start', 'pause', 'resume', 'speed', 'jump', 'end']),
+  /** Scenario ms per wall ms, for `speed` (and optionally `start`). */
+  factor: factorSchema.optional(),
+  /** Scenario time to jump to. */
+  to: scenarioTimeSchema.optional(),
+  /** Jump to the next scheduled inject instead. */
+  toNextInject: z.boolean().optional(),
+}).superRefine((v, ctx) => {
+  if (v.action === 'speed' && v.factor === undefined) ctx.addIssue({ code: 'custom', path: ['factor'], message: 'Give the new speed.' })
+  if (v.action === 'jump' && !v.to === !v.toNextInject) ctx.addIssue({ code: 'custom', path: ['to'], message: 'Give either a scenario time or toNextInject.' })
+})
+export type ClockActionInput = z.infer<typeof clockActionSchema>
+
+export const messageSchema = z.object({
+  teams: z.array(keySchema).min(1, 'Choose at least one team.').max(20),
+  title: z.string().trim().min(1, 'Enter a title.').max(300),
+  body: z.string().trim().min(1, 'Write the message.').max(20_000),
+  kind: keySchema.default('message'),
+  idempotencyKey: idempotencyKeySchema,
+})
+
+export const responseSchema = z.object({
+  injectKey: keySchema,
+  choice: z.string().trim().min(1).max(300).nullish(),
+  text: z.string().trim().max(10_000).default(''),
+  idempotencyKey: idempotencyKeySchema,
+}).refine(r => !!r.choice || r.text.length > 0, { path: ['text'], message: 'Choose an option or write a response.' })
+
+export const scoreSchema = z.object({
+  criterionKey: keySchema,
+  taskKey: keySchema,
+  rating: z.enum(['P', 'S', 'M', 'U']),
+  note: z.string().trim().max(4000).default(''),
+  idempotencyKey: idempotencyKeySchema,
+})
+
+export const observationSchema = z.object({
+  text: z.string().trim().min(1, 'Write the observation.').max(10_000),
+  injectKey: keySchema.nullish(),
+  teamKey: keySchema.nullish(),
+  idempotencyKey: idempotencyKeySchema,
+})
+
+export const eventsQuerySchema = z.object({
+  since: z.coerce.number().int().min(0).default(0),
+  limit: z.coerce.number().int().min(1).max(1000).default(500),
+})
+
+export const wallTokenSchema = z.object({ label: z.string().trim().max(120).default('') })
+
+/** The Socket.IO handshake `auth` of a live client: a member's exercise, or a wall's share token. */
+export const liveAuthSchema = z.object({
+  exerciseId: uuid.optional(),
+  wallToken: z.string().max(100).optional(),
+  lastSeq: z.coerce.number().int().min(0).default(0),
+})
