@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // The test tools that come from Debian, not npm: Chromium for the browser tests (never a
-// downloaded browser) and pdftotext (poppler-utils) for checking the PDF exports.
+// downloaded browser), pdftotext (poppler-utils) for checking the PDF exports, and redis-server
+// for the test of several server processes sharing one database.
 // When one is missing: install it with apt-get if we are root, else stop with a clear message.
 import { existsSync } from 'node:fs'
 import { execSync } from 'node:child_process'
@@ -9,6 +10,7 @@ const CHROMIUM = process.env.CHROMIUM_PATH || '/usr/bin/chromium'
 const TOOLS = [
   { path: CHROMIUM, pkg: 'chromium', why: 'the browser tests' },
   { path: '/usr/bin/pdftotext', pkg: 'poppler-utils', why: 'checking the PDF exports' },
+  { path: '/usr/bin/redis-server', pkg: 'redis-server', why: 'the test of several server processes' },
 ]
 
 const missing = TOOLS.filter(t => !existsSync(t.path))
