@@ -7,6 +7,10 @@ import { useLiveStore } from '~/stores/live'
 
 type Handler = (e: LiveEvent) => void
 
+/** What to follow: an exercise the signed-in user is a member of, or a wall view by its share token. */
+export type LiveTarget = string | { wallToken: string }
+const targetKey = (t: LiveTarget) => (typeof t === 'string' ? t : `wall:${t.wallToken}`)
+
 // Client-only singletons: one live connection (apart from useSocket's), shared by every component.
 let socket: Socket | null = null
 let ticker: ReturnType<typeof setInterval> | null = null
@@ -26,12 +30,14 @@ function close(store: ReturnType<typeof useLiveStore>) {
   if (store.status !== 'idle') store.status = 'closed'
 }
 
-function open(store: ReturnType<typeof useLiveStore>, exerciseId: string) {
+function open(store: ReturnType<typeof useLiveStore>, target: LiveTarget) {
   close(store)
-  store.reset(exerciseId)
+  store.reset(targetKey(target))
   store.status = 'connecting'
+  const who = typeof target === 'string' ? { exerciseId: target } : target
   // auth is read on every (re)connection, so a reconnect asks for what came after the last seq held.
-  const s = io({ path: '/socket.io/', transports: ['websocket', 'polling'], forceNew: true, auth: cb => cb({ exerciseId, lastSeq: store.lastSeq }) })
+  // tryAllTransports: where a proxy (hotel and conference networks) blocks WebSocket, fall back to long-polling.
+  const s = io({ path: '/socket.io/', transports: ['websocket', 'polling'], tryAllTransports: true, forceNew: true, auth: cb => cb({ ...who, lastSeq: store.lastSeq }) })
   s.on('event', (e: LiveEvent) => { if (store.ingest(e)) dispatch(e) })
   s.on('live:ready', (r: LiveReady) => {
     store.ready(r)
@@ -41,8 +47,13 @@ function open(store: ReturnType<typeof useLiveStore>, exerciseId: string) {
       store.setOffset(serverTime + (t1 - t0) / 2 - t1)
     })
   })
-  s.on('disconnect', (reason) => { store.status = reason === 'io client disconnect' ? 'closed' : 'reconnecting' })
+  // The server disconnects a revoked wall link (and a failed join); Socket.IO does not retry those.
+  s.on('disconnect', (reason) => {
+    store.lost()
+    store.status = reason === 'io client disconnect' ? 'closed' : reason === 'io server disconnect' ? 'refused' : 'reconnecting'
+  })
   s.on('connect_error', (err) => {
+    store.lost()
     store.error = err.message
     store.status = s.active ? 'reconnecting' : 'refused'
   })
@@ -51,12 +62,13 @@ function open(store: ReturnType<typeof useLiveStore>, exerciseId: string) {
 }
 
 /**
- * Follows one live exercise: connects with auth { exerciseId, lastSeq }, keeps its events in the
+ * Follows one live exercise: connects with auth { exerciseId, lastSeq } (or { wallToken, lastSeq }
+ * for a wall view), keeps its events in the
  * live store (deduplicated by seq), resyncs from the last seq after every reconnect, and ticks the
  * scenario clock locally. Client-only; the connection closes when the last user unmounts.
  * `on(type, handler)` (or `on('*', …)`) runs for each new event and is removed on unmount.
  */
-export function useExerciseLive(exerciseId: MaybeRefOrGetter<string>) {
+export function useExerciseLive(exerciseId: MaybeRefOrGetter<LiveTarget>) {
   const store = useLiveStore()
   const refs = storeToRefs(store)
 
@@ -74,7 +86,7 @@ export function useExerciseLive(exerciseId: MaybeRefOrGetter<string>) {
       users++
       if (closing) clearTimeout(closing)
       closing = null
-      if (!socket || store.exerciseId !== toValue(exerciseId)) open(store, toValue(exerciseId))
+      if (!socket || store.exerciseId !== targetKey(toValue(exerciseId))) open(store, toValue(exerciseId))
     }
     if (getCurrentInstance()) {
       onMounted(acquire)
@@ -82,7 +94,7 @@ export function useExerciseLive(exerciseId: MaybeRefOrGetter<string>) {
       onBeforeUnmount(() => {
         if (--users === 0) closing = setTimeout(() => close(store), 2000)
       })
-      watch(() => toValue(exerciseId), (id, old) => { if (id !== old) open(store, id) })
+      watch(() => targetKey(toValue(exerciseId)), (id, old) => { if (id !== old) open(store, toValue(exerciseId)) })
     }
     else acquire()
   }

@@ -26,6 +26,8 @@ export const useLiveStore = defineStore('live', () => {
   const offsetMs = ref(0)
   /** Local wall time, advanced by tick(). */
   const now = ref(Date.now())
+  /** Local wall time (ms) when the live connection dropped: what is shown dates from then. Null while live. */
+  const lostAt = ref<number | null>(null)
   let clockSeq = 0
   const seen = new Set<number>()
 
@@ -46,8 +48,14 @@ export const useLiveStore = defineStore('live', () => {
     events.value = []
     lastSeq.value = 0
     clock.value = null
+    lostAt.value = null
     clockSeq = 0
     seen.clear()
+  }
+
+  /** The connection dropped: remember when (the first drop counts until the next `ready`). */
+  function lost(t = Date.now()) {
+    if (lostAt.value === null) lostAt.value = t
   }
 
   /** Adds an event unless already held; returns whether it was new. */
@@ -79,14 +87,15 @@ export const useLiveStore = defineStore('live', () => {
     if (r.lastSeq > lastSeq.value) lastSeq.value = r.lastSeq
     status.value = 'live'
     error.value = null
+    lostAt.value = null
   }
 
   function setOffset(ms: number) { offsetMs.value = ms }
   function tick(t = Date.now()) { now.value = t }
 
   return {
-    exerciseId, status, error, view, teamKey, events, lastSeq, clock, offsetMs, now,
+    exerciseId, status, error, view, teamKey, events, lastSeq, clock, offsetMs, now, lostAt,
     scenarioNow, scenarioNowIso, running, feed, connected,
-    reset, ingest, ready, setOffset, tick,
+    reset, ingest, ready, lost, setOffset, tick,
   }
 })

@@ -43,10 +43,11 @@ export function liveSnapshot(exerciseId: string, view: LiveView) {
     clock, scenarioNow: new Date(scenarioNow).toISOString(), serverTime: Date.now(), lastSeq: latestSeq(exerciseId),
     phase: phaseAt(scenario, scenarioNow), phases: scenario.phases, teams: scenario.teams,
     currentSolution: feed.currentSolution, solutions: feed.solutions, drill: DRILL,
+    sites: scenario.sites,
     injects: feed.injects,
   }
   if (view.kind === 'player') return base
   const staff = { ...base, scores: feed.scores, observations: feed.observations, criteria: scenario.criteria }
   if (view.kind !== 'control') return staff
-  return { ...staff, schedule: schedule(exercise, feed, scenarioNow), held: feed.held }
+  return { ...staff, schedule: schedule(exercise, feed, scenarioNow), held: feed.held, plannedSolutions: scenario.solutions }
 }

@@ -13,7 +13,15 @@ export const ROLE_LABELS: Record<ExerciseRole, string> = {
   analyst: 'After-action lead',
 }
 
-/** The page each exercise role lands on. */
-export function roleHome(exerciseId: string, _role: ExerciseRole): string {
-  return `/exercises/${exerciseId}`
+/** The desk of each exercise role (the after-action lead reads the evaluator desk until the review desk exists). */
+const DESKS: Record<ExerciseRole, 'control' | 'room' | 'evaluate'> = {
+  facilitator: 'control',
+  player: 'room',
+  evaluator: 'evaluate',
+  analyst: 'evaluate',
+}
+
+/** The page each exercise role lands on: its desk in that exercise. */
+export function roleHome(exerciseId: string, role: ExerciseRole): string {
+  return `/exercises/${exerciseId}/${DESKS[role]}`
 }

@@ -1,0 +1,61 @@
+// Words and numbers of the live desks: scenario times, spans, clock speed, ratings.
+import dayjs from 'dayjs'
+import utc from 'dayjs/plugin/utc'
+import type { ExerciseStatus, Rating } from '~~/shared/live/types'
+
+dayjs.extend(utc)
+
+const ms = (t: number | string) => (typeof t === 'number' ? t : Date.parse(t))
+
+/** `Thu 4 Mar 2031` (UTC). */
+export const scenarioDay = (t: number | string) => dayjs.utc(ms(t)).format('ddd D MMM YYYY')
+/** `09:00:12` (UTC). */
+export const scenarioClockText = (t: number | string) => dayjs.utc(ms(t)).format('HH:mm:ss')
+/** `4 Mar 09:00 UTC`, with the year when asked. */
+export const scenarioStamp = (t: number | string, withYear = false) => `${dayjs.utc(ms(t)).format(withYear ? 'D MMM YYYY HH:mm' : 'D MMM HH:mm')} UTC`
+/** Local wall time `14:32` (the room's own clock). */
+export const wallHm = (t: number | string) => dayjs(ms(t)).format('HH:mm')
+/** Local wall time `14:32:05`. */
+export const wallHms = (t: number | string) => dayjs(ms(t)).format('HH:mm:ss')
+
+/** A span of time in words at the useful precision: `3 d 4 h`, `8 h 40 min`, `12 min`, `40 s`. */
+export function spanText(span: number): string {
+  const s = Math.max(0, Math.round(Math.abs(span) / 1000))
+  const d = Math.floor(s / 86_400), h = Math.floor((s % 86_400) / 3600), m = Math.floor((s % 3600) / 60)
+  if (d >= 10) return `${d} d`
+  if (d) return h ? `${d} d ${h} h` : `${d} d`
+  if (h) return m ? `${h} h ${m} min` : `${h} h`
+  if (m) return `${m} min`
+  return `${s} s`
+}
+
+/** `×1,364`. */
+export const factorText = (f: number) => `×${Math.round(f).toLocaleString('en-GB')}`
+
+/** What one wall minute is worth at a speed: `1 wall minute = 22.7 scenario hours`. */
+export function paceText(f: number): string {
+  const scenarioMin = f
+  const [value, unit] = scenarioMin >= 2880 ? [scenarioMin / 1440, 'days'] : scenarioMin >= 120 ? [scenarioMin / 60, 'hours'] : [scenarioMin, 'minutes']
+  const shown = value >= 100 ? Math.round(value).toLocaleString('en-GB') : String(Number(value.toPrecision(3)))
+  return `1 wall minute = ${shown} scenario ${shown === '1' ? unit.slice(0, -1) : unit}`
+}
+
+export const STATUS_WORDS: Record<ExerciseStatus, string> = { planned: 'Ready to start', running: 'Running', paused: 'Paused', ended: 'Ended' }
+
+/** The four ratings of a critical task, in words (after the public US exercise doctrine). */
+export const RATING_MEANINGS: Record<Rating, string> = {
+  P: 'Performed without challenges',
+  S: 'Performed with some challenges',
+  M: 'Performed with major challenges',
+  U: 'Unable to be performed',
+}
+
+/** Inject kinds in words: `decision-request` → `Decision request`. */
+export const kindText = (kind: string) => (kind.charAt(0).toUpperCase() + kind.slice(1)).replaceAll('-', ' ')
+
+/** The message of a failed $fetch, for a person. */
+export function failureText(e: unknown, fallback = 'That did not work. Try again.'): string {
+  const err = e as { data?: { message?: string }; statusCode?: number }
+  if (!err?.statusCode) return 'No answer from the server: check the connection and try again.'
+  return err.data?.message ?? fallback
+}
