@@ -226,7 +226,9 @@ test('each role lands on its own desk, and another desk points back to it', asyn
   await expect(sci.page).toHaveURL(room)
   const ev = await person(browser, 'analyst@brinkwater.test')
   await ev.page.getByTestId('exercise-list').locator('li', { hasText: 'Demo drill — Gannet' }).getByRole('link', { name: 'Open' }).click()
-  await expect(ev.page).toHaveURL(/\/evaluate$/)
+  await expect(ev.page).toHaveURL(/\/review$/)
+  // The after-action lead can still follow the drill on the evaluator desk, read-only.
+  await ev.page.goto(ev.page.url().replace(/\/review$/, '/evaluate'))
   await expect(ev.page.getByTestId('scorecards')).toContainText('ratings are recorded by evaluators')
   for (const c of [sci, ev]) await c.context.close()
 })

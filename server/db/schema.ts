@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm'
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import { EXERCISE_ROLES, SYSTEM_ROLES } from '../../shared/utils/roles'
 import type { Scenario } from '../../shared/scenario/schema'
+import { FINDING_KINDS, HOTWASH_KEYS, ITEM_STATUSES, POETE_ELEMENTS } from '../../shared/review/plan'
 
 const id = () => text('id').primaryKey().$defaultFn(() => crypto.randomUUID())
 const timestamps = {
@@ -196,4 +197,89 @@ export const wallTokens = sqliteTable('wall_tokens', {
   uniqueIndex('wall_tokens_hash_unique').on(t.tokenHash),
   index('wall_tokens_exercise_idx').on(t.exerciseId),
   index('wall_tokens_created_by_idx').on(t.createdBy),
+])
+
+/** After-action findings: strengths and areas for improvement, tied to an objective and a capability. Not drill events. */
+export const exerciseFindings = sqliteTable('exercise_findings', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  kind: text('kind', { enum: FINDING_KINDS }).notNull(),
+  objectiveKey: text('objective_key').notNull(),
+  capability: text('capability').notNull(),
+  title: text('title').notNull(),
+  detail: text('detail').notNull().default(''),
+  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+  updatedBy: text('updated_by').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  index('exercise_findings_exercise_idx').on(t.exerciseId),
+  index('exercise_findings_created_by_idx').on(t.createdBy),
+  index('exercise_findings_updated_by_idx').on(t.updatedBy),
+])
+
+/** The improvement plan: corrective actions with a capability element (POETE), owner, dates and status. */
+export const improvementItems = sqliteTable('improvement_items', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  /** The area for improvement it answers (null once that finding is deleted, or when none was named). */
+  findingId: text('finding_id').references(() => exerciseFindings.id, { onDelete: 'set null' }),
+  objectiveKey: text('objective_key').notNull(),
+  capability: text('capability').notNull(),
+  action: text('action').notNull(),
+  element: text('element', { enum: POETE_ELEMENTS }).notNull(),
+  owner: text('owner').notNull(),
+  /** Calendar dates, YYYY-MM-DD. */
+  startDate: text('start_date').notNull(),
+  dueDate: text('due_date').notNull(),
+  status: text('status', { enum: ITEM_STATUSES }).notNull().default('open'),
+  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+  updatedBy: text('updated_by').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  index('improvement_items_exercise_idx').on(t.exerciseId),
+  index('improvement_items_finding_idx').on(t.findingId),
+  index('improvement_items_created_by_idx').on(t.createdBy),
+  index('improvement_items_updated_by_idx').on(t.updatedBy),
+])
+
+/** One participant's feedback on a drill (sent again, it replaces the earlier answers). */
+export const feedbackResponses = sqliteTable('feedback_responses', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  userId: text('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  /** 1..5 per question key of FEEDBACK_QUESTIONS. */
+  ratings: text('ratings', { mode: 'json' }).$type<Record<string, number>>().notNull(),
+  wentWell: text('went_well').notNull().default(''),
+  toImprove: text('to_improve').notNull().default(''),
+  ...timestamps,
+}, t => [
+  uniqueIndex('feedback_responses_exercise_user_unique').on(t.exerciseId, t.userId),
+  index('feedback_responses_user_idx').on(t.userId),
+])
+
+/** Feedback forms sent by e-mail: one row per member and sending. */
+export const feedbackRequests = sqliteTable('feedback_requests', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  userId: text('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  sentBy: text('sent_by').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  index('feedback_requests_exercise_idx').on(t.exerciseId),
+  index('feedback_requests_user_idx').on(t.userId),
+  index('feedback_requests_sent_by_idx').on(t.sentBy),
+])
+
+/** Hotwash notes: one editable text per section; `revision` guards against lost updates. */
+export const hotwashNotes = sqliteTable('hotwash_notes', {
+  id: id(),
+  exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  section: text('section', { enum: HOTWASH_KEYS }).notNull(),
+  body: text('body').notNull().default(''),
+  revision: integer('revision').notNull().default(1),
+  updatedBy: text('updated_by').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  uniqueIndex('hotwash_notes_section_unique').on(t.exerciseId, t.section),
+  index('hotwash_notes_updated_by_idx').on(t.updatedBy),
 ])

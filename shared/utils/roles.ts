@@ -13,12 +13,12 @@ export const ROLE_LABELS: Record<ExerciseRole, string> = {
   analyst: 'After-action lead',
 }
 
-/** The desk of each exercise role (the after-action lead reads the evaluator desk until the review desk exists). */
-const DESKS: Record<ExerciseRole, 'control' | 'room' | 'evaluate'> = {
+/** The desk of each exercise role; the after-action lead works on the review desk. */
+const DESKS: Record<ExerciseRole, 'control' | 'room' | 'evaluate' | 'review'> = {
   facilitator: 'control',
   player: 'room',
   evaluator: 'evaluate',
-  analyst: 'evaluate',
+  analyst: 'review',
 }
 
 /** The page each exercise role lands on: its desk in that exercise. */

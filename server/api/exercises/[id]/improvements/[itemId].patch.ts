@@ -1,0 +1,9 @@
+import { improvementParamsSchema, improvementPatchSchema } from '../../../../../shared/schemas/review'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id, itemId } = paramsValid(event, improvementParamsSchema)
+  const { user } = await requireReviewWriter(event, id)
+  const patch = await readValid(event, improvementPatchSchema)
+  return updateImprovement(id, itemId, patch, user.id)
+})

@@ -1,0 +1,8 @@
+import { idParamSchema } from '../../../../../shared/schemas/auth'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id } = paramsValid(event, idParamSchema)
+  await requireReviewReader(event, id)
+  return listImprovements(id)
+})

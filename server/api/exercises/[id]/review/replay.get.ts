@@ -1,0 +1,9 @@
+import { idParamSchema } from '../../../../../shared/schemas/auth'
+
+// The record with audiences for the replay (assessments left out; see review/solutions/[key]).
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id } = paramsValid(event, idParamSchema)
+  await requireReviewReader(event, id)
+  return replayRecord(id)
+})

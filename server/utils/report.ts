@@ -1,0 +1,88 @@
+import { blastRings, defaultView, loadAtlas, renderMapSvg, runUpClass } from '../../shared/geo'
+import type { Assessment } from '../../shared/hazard/types'
+import type { OrbitSolution } from '../../shared/hazard/schema'
+import type { SolutionPublishedData, StoredEvent } from '../../shared/live/types'
+import { decisionSummary } from '../../shared/review/decisions'
+import { scoringSummary } from '../../shared/review/scoring'
+import { timelineRows } from '../../shared/review/timeline'
+import type { Scenario } from '../../shared/scenario/schema'
+import { DRILL_CAUTION, DRILL_MARKING } from '../../shared/utils/drill'
+import { ROLE_LABELS, EXERCISE_ROLES } from '../../shared/utils/roles'
+
+/** Events the condensed timeline keeps: the clock, publications, releases, messages and holds (responses, scores and observations have their own sections). */
+const CONDENSED = new Set(['clock.changed', 'solution.published', 'inject.released', 'message.sent', 'inject.held'])
+
+function threat(events: readonly StoredEvent[]) {
+  return events.filter(e => e.type === 'solution.published').map((e) => {
+    const d = e.data as SolutionPublishedData
+    const h = d.headline
+    return {
+      key: d.key, label: d.label, seq: e.seq, publishedAt: new Date(e.scenarioTime).toISOString(), impactTime: d.solution.impactTime,
+      impactProbability: h.impactProbability, probabilityText: h.text.impactProbability, odds: h.text.odds, torino: h.torino, palermo: h.text.palermo,
+      energyText: h.text.energyMt, diameterText: h.text.diameterM, tsunamiProbability: h.tsunamiProbability, airburstProbability: h.airburstProbability,
+    }
+  })
+}
+
+/** The corridor map of the last published solution with the earlier corridors, as an SVG string (Plex fonts for the PDF). */
+export async function finalMapSvg(scenario: Scenario, published: Array<{ solution: OrbitSolution; assessment: Assessment }>, opts: { width?: number; height?: number; fontFamily?: string } = {}) {
+  const last = published.at(-1)
+  if (!last) return null
+  const { basis, rings } = blastRings(last.assessment)
+  const view = defaultView(last.solution.corridor)
+  return renderMapSvg({
+    width: opts.width ?? 1000, height: opts.height ?? 580, view, atlas: await loadAtlas(view === 'regional' ? '50m' : '110m'),
+    corridors: published.map(p => p.solution.corridor), impactPoints: last.assessment.impactPoints, rings, ringBasis: basis,
+    sites: scenario.sites.flatMap((s) => {
+      const a = last.assessment.sites.find(x => x.siteId === s.id)
+      return a ? [{ id: s.id, name: s.name, lon: s.lon, lat: s.lat, population: s.population, tone: runUpClass(a) }] : []
+    }),
+    title: 'Risk corridor of the last published solution, earlier corridors dashed', fontFamily: opts.fontFamily,
+  })
+}
+
+function participants(exerciseId: string, scenario: Scenario) {
+  const members = exerciseMembers(exerciseId)
+  const groups: Array<{ role: string; roleLabel: string; teamKey: string | null; teamName: string | null; people: string[] }> = []
+  for (const role of EXERCISE_ROLES) {
+    const teams = role === 'player' ? scenario.teams.map(t => t.key) : [null]
+    for (const teamKey of teams) {
+      const people = members.filter(m => m.role === role && (role !== 'player' || m.teamKey === teamKey)).map(m => m.name)
+      if (people.length) groups.push({ role, roleLabel: ROLE_LABELS[role], teamKey, teamName: scenario.teams.find(t => t.key === teamKey)?.name ?? null, people })
+    }
+  }
+  return { groups, total: members.length }
+}
+
+/**
+ * Everything the after-action report shows, read from the record and the review tables: the PDF and
+ * the printable page are both drawn from it. `map: true` adds the corridor map as SVG.
+ */
+export async function reportData(exerciseId: string, opts: { map?: boolean; mapFont?: string } = {}) {
+  const { exercise, events, scenarioNow } = reviewRecord(exerciseId)
+  const { scenario } = exercise
+  const actors = new Map(exerciseMembers(exerciseId).map(m => [m.userId, m.name]))
+  const published = events.filter(e => e.type === 'solution.published').map(e => e.data as SolutionPublishedData)
+  return {
+    drill: { marking: DRILL_MARKING, caution: DRILL_CAUTION },
+    generatedAt: new Date().toISOString(),
+    exercise: { id: exercise.id, title: exercise.title, description: exercise.description, status: exercise.status, createdAt: exercise.createdAt.toISOString(), ...drillDates(events) },
+    scenario: {
+      key: scenario.key, title: scenario.title, summary: scenario.summary, clock: scenario.clock,
+      objectives: scenario.objectives, teams: scenario.teams, phases: scenario.phases,
+      injectCount: scenario.injects.length, solutionCount: scenario.solutions.length,
+    },
+    participants: participants(exerciseId, scenario),
+    threat: threat(events),
+    map: opts.map ? await finalMapSvg(scenario, published, { fontFamily: opts.mapFont }) : null,
+    timeline: timelineRows(events.filter(e => CONDENSED.has(e.type)), actors, scenario).map(r => ({ seq: r.seq, wallTime: r.wallTime, scenarioTime: r.scenarioTime, summary: r.summary, teams: r.teams })),
+    eventCount: events.length,
+    decisions: decisionSummary(events, scenario, scenarioNow),
+    scoring: scoringSummary(events, scenario),
+    findings: listFindings(exerciseId),
+    improvements: listImprovements(exerciseId),
+    feedback: reviewFeedback(exerciseId).summary,
+    hotwash: hotwashNotes(exerciseId),
+  }
+}
+export type ReportData = Awaited<ReturnType<typeof reportData>>

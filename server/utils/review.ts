@@ -1,0 +1,98 @@
+import { eq } from 'drizzle-orm'
+import type { H3Event } from 'h3'
+import { decisionSummary } from '../../shared/review/decisions'
+import { eventFacets } from '../../shared/review/facets'
+import { scoringSummary } from '../../shared/review/scoring'
+import type { SolutionPublishedData, StoredEvent } from '../../shared/live/types'
+
+/** The review desk is read by the analyst, the facilitator and the evaluators (admins look in); players 403. */
+export async function requireReviewReader(event: H3Event, exerciseId: string) {
+  return requireExerciseRole(event, exerciseId, ['facilitator', 'analyst', 'evaluator'], { allowAdmin: true })
+}
+
+/** Findings, the improvement plan, hotwash notes and mailings are written by the analyst and the facilitator only. */
+export async function requireReviewWriter(event: H3Event, exerciseId: string) {
+  return requireExerciseRole(event, exerciseId, ['facilitator', 'analyst'])
+}
+
+/** The exercise with its frozen scenario, its whole record (control view) and the scenario time now. */
+export function reviewRecord(exerciseId: string) {
+  const exercise = liveExercise(useDB(), exerciseId)
+  const events = storedEvents(exerciseId, { kind: 'control' })
+  const { clock, scenarioNow } = clockNow(exercise)
+  return { exercise, events, clock, scenarioNow }
+}
+
+/** Members of an exercise with name, e-mail, role and team, by name. */
+export function exerciseMembers(exerciseId: string) {
+  return useDB().select({
+    userId: schema.users.id, name: schema.users.name, email: schema.users.email, role: schema.memberships.role, teamKey: schema.memberships.teamKey,
+  }).from(schema.memberships).innerJoin(schema.users, eq(schema.users.id, schema.memberships.userId))
+    .where(eq(schema.memberships.exerciseId, exerciseId)).orderBy(schema.users.name).all()
+}
+
+/** Wall times of the first start and of the end of the clock (ISO), from the record. */
+export function drillDates(events: readonly StoredEvent[]) {
+  const clock = events.filter(e => e.type === 'clock.changed')
+  const start = clock.find(e => (e.data as { action: string }).action === 'start')
+  const end = clock.findLast(e => (e.data as { action: string }).action === 'end')
+  const iso = (e?: StoredEvent) => (e ? new Date(e.wallTime).toISOString() : null)
+  return { startedAt: iso(start), endedAt: iso(end), lastEventAt: iso(events.at(-1)) }
+}
+
+/** The review desk's frame: the exercise, the parts of its scenario the desk needs, members, the timeline with filter facets, and what the caller may do. */
+export function reviewOverview(exerciseId: string, access: ExerciseAccess) {
+  const { exercise, rows, events } = exerciseTimeline(exerciseId)
+  const { scenario } = liveExercise(useDB(), exerciseId)
+  const facets = new Map(events.map(e => [e.seq, eventFacets(e, scenario)]))
+  const role = access.membership?.role ?? null
+  return {
+    exercise: { id: exercise.id, title: exercise.title, description: exercise.description, status: exercise.status, createdAt: exercise.createdAt.toISOString(), ...drillDates(events) },
+    scenario: {
+      key: scenario.key, title: scenario.title, summary: scenario.summary, clock: scenario.clock,
+      objectives: scenario.objectives, teams: scenario.teams, phases: scenario.phases, criteria: scenario.criteria,
+      injects: scenario.injects.map(i => ({ key: i.key, title: i.title, at: i.at, phase: i.phase, teams: i.teams, kind: i.kind, decision: !!i.decision })),
+    },
+    members: exerciseMembers(exerciseId).map(m => ({ ...m, email: role === 'evaluator' ? undefined : m.email })),
+    timeline: rows.map(r => ({ ...r, teamKeys: facets.get(r.seq)?.teamKeys ?? [], phaseKey: facets.get(r.seq)?.phaseKey ?? null })),
+    lastSeq: events.at(-1)?.seq ?? 0,
+    role,
+    can: { write: role === 'analyst' || role === 'facilitator', export: role === 'analyst' || role === 'facilitator' || !access.membership },
+  }
+}
+
+/** Decisions with response times, per team and per phase. */
+export function reviewDecisions(exerciseId: string) {
+  const { exercise, events, scenarioNow } = reviewRecord(exerciseId)
+  return decisionSummary(events, exercise.scenario, scenarioNow)
+}
+
+/** Ratings by objective and capability, observations, agreement between evaluators and their disagreements. */
+export function reviewScoring(exerciseId: string) {
+  const { exercise, events } = reviewRecord(exerciseId)
+  return scoringSummary(events, exercise.scenario)
+}
+
+/**
+ * The record for the replay: every event with its audience (so the page can show each room its share),
+ * with the assessments left out of solution publications (fetched one at a time, see `publishedSolution`).
+ */
+export function replayRecord(exerciseId: string) {
+  const { exercise, events } = reviewRecord(exerciseId)
+  const slim = events.map((e) => {
+    if (e.type !== 'solution.published') return e
+    const { assessment: _a, ...data } = e.data as SolutionPublishedData
+    return { ...e, data }
+  })
+  return { events: slim, sites: exercise.scenario.sites, teams: exercise.scenario.teams, phases: exercise.scenario.phases, injects: exercise.scenario.injects.map(i => ({ key: i.key, phase: i.phase, at: i.at })) }
+}
+
+/** A published solution of the exercise with its stored assessment; 404 when it was not published. */
+export function publishedSolution(exerciseId: string, key: string) {
+  const row = useDB().select().from(schema.exerciseSolutions).where(eq(schema.exerciseSolutions.exerciseId, exerciseId)).all().find(s => s.solutionKey === key)
+  if (!row) throw createError({ statusCode: 404, message: 'This solution was not published in this exercise.' })
+  const event = storedEvents(exerciseId, { kind: 'control' }, row.seq - 1, 1)[0]
+  const d = event?.data as SolutionPublishedData | undefined
+  if (!d || event?.type !== 'solution.published') throw createError({ statusCode: 404, message: 'This solution was not published in this exercise.' })
+  return { key: d.key, label: d.label, releaseAt: d.releaseAt, seq: event.seq, solution: d.solution, assessment: d.assessment, headline: d.headline }
+}

@@ -1,0 +1,16 @@
+/**
+ * Text for the PDF exports, which embed only the Latin subset of IBM Plex: characters outside it
+ * (superscript digits, Greek letters, arrows, some maths) are written out in plain Latin.
+ */
+const SUPERSCRIPTS: Record<string, string> = { '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9', '⁻': '-' }
+const REPLACE: Record<string, string> = {
+  'κ': 'kappa', 'σ': 'sigma', 'μ': 'micro', 'Δ': 'delta', '→': '->', '←': '<-', '≥': '>=', '≤': '<=', '≈': '~', '≠': '!=',
+  '∞': 'infinity', '✓': 'yes', '✗': 'no', '☐': '[ ]', '\u00a0': ' ',
+}
+
+/** Superscript runs become `^n` ("8.2 × 10⁹" → "8.2 × 10^9"); other characters outside the subset are replaced. */
+export function pdfSafe(text: string): string {
+  return text
+    .replace(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻]+/g, run => `^${[...run].map(c => SUPERSCRIPTS[c]).join('')}`)
+    .replace(/[κσμΔ→←≥≤≈≠∞✓✗☐\u00a0]/g, c => REPLACE[c] ?? c)
+}
