@@ -62,6 +62,9 @@ test('the orbit solution tab shows live headline figures that follow the edits',
   await expect(preview.getByTestId('figure-diameterM')).toContainText(/\d.* m/)
   await expect(preview).toContainText(/Makes a tsunami, given impact\s*[<\d]/)
   await expect(preview.getByTestId('preview-sites')).toContainText('Porto Salgado')
+  // The map shows this solution's corridor over the six earlier ones.
+  await expect(preview.locator('[data-corridor="current"]')).toHaveAttribute('d', /^M[\d.]+/)
+  await expect(preview.locator('[data-corridor="earlier"]')).toHaveCount(6)
   await shot(page, 'scenario-editor-solutions')
 
   const before = await energy.textContent()
