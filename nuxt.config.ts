@@ -45,8 +45,12 @@ export default defineNuxtConfig({
     session: {
       name: 'brinkwater-session',
       maxAge: 60 * 60 * 12,
-      cookie: { sameSite: 'lax', httpOnly: true },
+      // Secure only behind HTTPS: NUXT_SECURE_COOKIES=1 or an https NUXT_APP_URL turns it on at start
+      // (server/middleware/01.security.ts); NUXT_SESSION_COOKIE_SECURE=true sets it directly.
+      cookie: { sameSite: 'lax', httpOnly: true, secure: false },
     },
+    // Redis for Socket.IO across several processes (NUXT_REDIS_URL, e.g. redis://127.0.0.1:6379); empty: one process.
+    redisUrl: '',
   },
   // BW_BUILD_DIR / BW_OUTPUT_DIR let two builds run side by side (e.g. a second working copy's tests).
   buildDir: process.env.BW_BUILD_DIR || '.nuxt',

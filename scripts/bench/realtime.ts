@@ -53,10 +53,14 @@ async function call(cookie: string, method: string, path: string, body?: unknown
   const text = await res.text()
   return { status: res.status, json: text ? JSON.parse(text) : null, setCookie: res.headers.getSetCookie()[0] }
 }
+// The demo seed finishes just after the server first answers: sign-in may need a few tries.
 async function signIn(email: string) {
-  const res = await call('', 'POST', '/api/auth/login', { email, password: PASSWORD })
-  if (res.status !== 200) throw new Error(`login ${email} → ${res.status}`)
-  return res.setCookie!.split(';')[0]!
+  for (const deadline = Date.now() + 30_000; ;) {
+    const res = await call('', 'POST', '/api/auth/login', { email, password: PASSWORD })
+    if (res.status === 200) return res.setCookie!.split(';')[0]!
+    if (res.status !== 401 || Date.now() > deadline) throw new Error(`login ${email} → ${res.status}`)
+    await new Promise(r => setTimeout(r, 200))
+  }
 }
 const pct = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor(p * sorted.length))] ?? Number.NaN
 

@@ -283,3 +283,18 @@ export const hotwashNotes = sqliteTable('hotwash_notes', {
   uniqueIndex('hotwash_notes_section_unique').on(t.exerciseId, t.section),
   index('hotwash_notes_updated_by_idx').on(t.updatedBy),
 ])
+
+/**
+ * Leases among the processes that share this database: the holder of `scheduler` runs the inject
+ * scheduler. The holder renews `expiresAt` (wall ms) while it runs; another process takes the lease
+ * once it has expired, or at once when the holder's process on this host is gone (server/utils/lease.ts).
+ */
+export const schedulerLeases = sqliteTable('scheduler_leases', {
+  name: text('name').primaryKey(),
+  /** `<host>/<pid>/<random>` of the holding process. */
+  holder: text('holder').notNull(),
+  expiresAt: integer('expires_at').notNull(),
+  /** When the current holder took the lease (wall ms). */
+  acquiredAt: integer('acquired_at').notNull(),
+  ...timestamps,
+})

@@ -1,12 +1,27 @@
 // The inject scheduler: every SCHEDULER_INTERVAL_MS it releases what fell due in running exercises.
-// The first pass also covers paused ones, so what fell due while the server was down goes out once.
+// Several processes may share the database: only the holder of the scheduler lease (a row in
+// SQLite, renewed while it runs, taken over after it expires or its process dies) schedules.
+// A process that takes the lease first covers paused exercises too, so what fell due while no
+// process was scheduling goes out once.
 const SCHEDULER_INTERVAL_MS = Number(process.env.NUXT_SCHEDULER_INTERVAL_MS) || 250
+const SCHEDULER_LEASE_MS = Number(process.env.NUXT_SCHEDULER_LEASE_MS) || 3000
 
 export default defineNitroPlugin((nitroApp) => {
-  const first = setTimeout(() => schedulerTick(['running', 'paused']), 0)
-  const timer = setInterval(() => schedulerTick(['running']), SCHEDULER_INTERVAL_MS)
+  // A pass lets I/O run between releases, so one may outlast the interval: passes never overlap.
+  let busy = false
+  const tick = async () => {
+    if (busy) return
+    busy = true
+    try { await scheduleIfHolder(SCHEDULER_LEASE_MS) }
+    catch (err) { console.error('[scheduler]', err) }
+    finally { busy = false }
+  }
+  const first = setTimeout(() => void tick(), 0)
+  const timer = setInterval(() => void tick(), SCHEDULER_INTERVAL_MS)
   nitroApp.hooks.hook('close', () => {
     clearTimeout(first)
     clearInterval(timer)
+    try { stopScheduling() }
+    catch (err) { console.error('[scheduler] could not free the lease:', err) }
   })
 })

@@ -1,8 +1,10 @@
 import type { NitroApp } from 'nitropack'
 import { Server as Engine } from 'engine.io'
 import { Server } from 'socket.io'
+import { createAdapter } from '@socket.io/redis-adapter'
+import { Redis } from 'ioredis'
 import type { Socket } from 'socket.io'
-import { and, eq } from 'drizzle-orm'
+import { and, eq, gte, lte, min } from 'drizzle-orm'
 import { liveAuthSchema } from '../../shared/schemas/live'
 import { rooms } from '../../shared/live/visibility'
 import type { LiveReady, LiveView } from '../../shared/live/types'
@@ -28,17 +30,59 @@ function memberView(exerciseId: string, userId: string, systemRole: string): Liv
   return exists && systemRole === 'admin' ? viewOf(null) : null
 }
 
+/** How far back (wall ms) events of another process may arrive after later ones, with the Redis adapter. */
+const REORDER_WINDOW_MS = 5000
+let clustered = false
+
+/**
+ * Where a replay starts. With one process, events reach a socket in seq order, so after lastSeq.
+ * With the Redis adapter, an event committed by another process can arrive after a later local one
+ * (delivery through Redis, or a process paused between commit and emit); a client that dropped in
+ * between would have missed it. So the replay starts REORDER_WINDOW_MS of wall time before lastSeq;
+ * clients keep events by seq and drop the ones they already have.
+ */
+function replayFrom(exerciseId: string, lastSeq: number): number {
+  if (!clustered || lastSeq === 0) return lastSeq
+  const e = schema.exerciseEvents
+  const at = useDB().select({ wallTime: e.wallTime }).from(e).where(and(eq(e.exerciseId, exerciseId), eq(e.seq, lastSeq))).get()
+  if (!at) return lastSeq
+  const first = useDB().select({ seq: min(e.seq) }).from(e)
+    .where(and(eq(e.exerciseId, exerciseId), gte(e.wallTime, at.wallTime - REORDER_WINDOW_MS), lte(e.seq, lastSeq))).get()
+  return Math.max(0, (first?.seq ?? lastSeq + 1) - 1)
+}
+
 /** Joins the reader's rooms, replays what it missed after lastSeq and says it is ready: all in one tick, so no event falls between. */
 function joinLive(socket: Socket, live: LiveSocketData): void {
   socket.join(roomsOf(live.exerciseId, live.view))
   if (live.wallTokenId) socket.join(rooms.wallToken(live.wallTokenId))
-  for (const e of visibleEvents(live.exerciseId, live.view, live.lastSeq)) socket.emit('event', e)
+  for (const e of visibleEvents(live.exerciseId, live.view, replayFrom(live.exerciseId, live.lastSeq))) socket.emit('event', e)
   const exercise = liveExercise(useDB(), live.exerciseId)
   const ready: LiveReady = {
     exerciseId: live.exerciseId, view: live.view.kind, teamKey: live.view.kind === 'player' ? live.view.teamKey : null,
     clock: clockNow(exercise).clock, lastSeq: latestSeq(live.exerciseId), serverTime: Date.now(),
   }
   socket.emit('live:ready', ready)
+}
+
+/**
+ * With NUXT_REDIS_URL set, rooms span every process of the app: an event emitted in one process
+ * reaches the sockets connected to the others through Redis pub/sub (@socket.io/redis-adapter).
+ */
+function attachRedisAdapter(io: Server): { close: () => Promise<void> } | null {
+  const url = process.env.NUXT_REDIS_URL || String(useRuntimeConfig().redisUrl || '')
+  if (!url) return null
+  const pub = new Redis(url, { maxRetriesPerRequest: null })
+  const sub = pub.duplicate()
+  for (const [name, client] of [['pub', pub], ['sub', sub]] as const) {
+    client.on('error', (err: Error) => console.error(`[socket.io] redis ${name}:`, err.message))
+  }
+  io.adapter(createAdapter(pub, sub, { key: 'brinkwater' }))
+  clustered = true
+  return {
+    async close() {
+      await Promise.allSettled([pub.quit(), sub.quit()])
+    },
+  }
 }
 
 // All realtime glue: Socket.IO bound to Nitro's router on /socket.io/ (HTTP long-polling and
@@ -50,6 +94,7 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
   const io = new Server({ serveClient: false, connectionStateRecovery: undefined })
   io.bind(engine)
   setIO(io)
+  const redis = attachRedisAdapter(io)
 
   io.use(async (socket, next) => {
     try {
@@ -114,5 +159,6 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
 
   nitroApp.hooks.hook('close', async () => {
     await io.close()
+    await redis?.close()
   })
 })

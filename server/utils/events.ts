@@ -86,6 +86,7 @@ function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, 
 export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T {
   const appended: StoredEvent[] = []
   let exercise: LiveExercise | undefined
+  // IMMEDIATE takes the write lock first: with several processes on one file, a deferred read-then-write fails with SQLITE_BUSY instead of waiting.
   const result = useDB().transaction((tx) => {
     exercise = liveExercise(tx, exerciseId)
     const clock = readClock(tx, exercise)
@@ -98,7 +99,7 @@ export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T 
       return stored
     }
     return work({ tx, exercise, clock, bounds, now, scenarioNow, append })
-  })
+  }, { behavior: 'immediate' })
   if (exercise && appended.length) emitLive(exercise, appended)
   return result
 }

@@ -28,5 +28,5 @@ export function consumeAccountToken(token: string, now = Date.now()): { userId: 
     }
     tx.update(schema.accountTokens).set({ usedAt: new Date(now) }).where(eq(schema.accountTokens.id, row.id)).run()
     return { userId: row.userId, kind: row.kind }
-  })
+  }, { behavior: 'immediate' }) // read then write: take the write lock first (several processes may share the file)
 }

@@ -10,8 +10,14 @@ function parseOr400<S extends z.ZodType>(schema: S, value: unknown, what: string
   return result.data
 }
 
-/** The JSON body, validated; a malformed or invalid body → 400 with field-level issues. */
+const JSON_TYPE = /^application\/(?:[\w.-]+\+)?json\s*(?:;|$)/i
+
+/** The JSON body, validated; a malformed or invalid body → 400 with field-level issues, a body that is not JSON → 415. */
 export async function readValid<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
+  const hasBody = Number(getRequestHeader(event, 'content-length') ?? 0) > 0 || !!getRequestHeader(event, 'transfer-encoding')
+  if (hasBody && !JSON_TYPE.test(getRequestHeader(event, 'content-type') ?? '')) {
+    throw createError({ statusCode: 415, message: 'Send the request body as JSON (Content-Type: application/json).' })
+  }
   let body: unknown
   try { body = await readBody(event) }
   catch { throw createError({ statusCode: 400, message: 'The request body is not valid JSON.' }) }
