@@ -12,13 +12,13 @@
  */
 import { fork, spawn } from 'node:child_process'
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs'
-import { createServer } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { fileURLToPath, pathToFileURL } from 'node:url'
 import Database from 'better-sqlite3'
 import { io, type Socket } from 'socket.io-client'
 import { stringifyScenario, type Scenario } from '../../shared/scenario/index'
+import { freePort } from '../../tests/integration/global-setup'
 
 const PASSWORD = 'brinkwater-demo'
 
@@ -65,14 +65,6 @@ export interface LoadReport {
   errors: string[]
 }
 
-const freePort = () => new Promise<number>((ok, fail) => {
-  const srv = createServer()
-  srv.on('error', fail)
-  srv.listen(0, '127.0.0.1', () => {
-    const { port } = srv.address() as { port: number }
-    srv.close(() => ok(port))
-  })
-})
 const sleep = (ms: number) => new Promise(r => setTimeout(r, ms))
 const pct = (xs: number[], p: number) => {
   const s = [...xs].sort((a, b) => a - b)

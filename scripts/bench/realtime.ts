@@ -7,24 +7,15 @@
  */
 import { spawn } from 'node:child_process'
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs'
-import { createServer } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { io, type Socket } from 'socket.io-client'
 import { parseScenarioYaml } from '../../shared/scenario/io'
+import { freePort } from '../../tests/integration/global-setup'
 
 const SOCKETS = Number(process.env.BENCH_SOCKETS) || 300
 const RELEASES = Number(process.env.BENCH_RELEASES) || 24
 const PASSWORD = 'brinkwater-demo'
-
-const freePort = () => new Promise<number>((ok, fail) => {
-  const srv = createServer()
-  srv.on('error', fail)
-  srv.listen(0, '127.0.0.1', () => {
-    const { port } = srv.address() as { port: number }
-    srv.close(() => ok(port))
-  })
-})
 
 const root = resolve(import.meta.dirname, '../..')
 const entry = join(root, process.env.BW_OUTPUT_DIR || '.output', 'server/index.mjs')
