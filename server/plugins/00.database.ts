@@ -9,6 +9,8 @@ export default defineNitroPlugin(async () => {
   const base = resolve(process.env.NUXT_ATTACHMENTS_DIR || config.attachmentsDir || resolve(dirname(dbFile), 'attachments'))
   useStorage().mount('attachments', fsDriver({ base }))
   if (String(config.seedDemo) === 'true' || process.env.NUXT_SEED_DEMO === '1') {
-    await seedDemo()
+    const seeding = seedDemo()
+    setStartup(seeding)
+    await seeding
   }
 })
