@@ -64,5 +64,10 @@ export const siteSchema = z.object({
   offshoreDepthM: z.number().min(1).max(11000).optional(),
   /** Beach slope, degrees from the horizontal. */
   beachSlopeDeg: z.number().gt(0).max(45).optional(),
+  /**
+   * Width of the continental shelf in front of the site, km: the horizontal distance over which the
+   * sea floor rises from `offshoreDepthM` to the toe of the beach. Absent: a default shelf.
+   */
+  shelfWidthKm: z.number().gt(0).max(500).optional(),
 })
 export type Site = z.infer<typeof siteSchema>

@@ -58,10 +58,28 @@ export interface SiteAssessment {
   tsunamiMainArrivalMin: Percentiles
   runUpM: Percentiles
   /**
+   * The tsunami under each published source law separately (the band the literature spans):
+   * offshore amplitude and run-up, metres, over the same realisations as `tsunamiAmplitudeM`
+   * and `runUpM` (which mix the laws as model uncertainty). Keys match Assessment.tsunamiSourceLaws.
+   */
+  tsunamiBand?: Record<TsunamiLawKey, { amplitudeM: Percentiles; runUpM: Percentiles }>
+  /**
    * Probability of exceeding each threshold at this site, 0..1, CONDITIONAL ON IMPACT (the share of
    * impact realisations that exceed it); multiply by Assessment.impactProbability for the absolute risk.
    */
   exceedance: Record<ThresholdKey, number>
+}
+
+/** The two ends of the published spread of impact-tsunami source laws. */
+export type TsunamiLawKey = 'low' | 'high'
+
+/** A published tsunami source law the Monte Carlo draws from (model uncertainty). */
+export interface TsunamiSourceLaw {
+  key: TsunamiLawKey
+  /** Short name for screens, e.g. "Rim wave, 1/r decay". */
+  name: string
+  /** Authors, year, journal and the equation used. */
+  source: string
 }
 
 export interface AssessmentOptions {
@@ -89,6 +107,10 @@ export interface Assessment {
   tsunamiProbability: number
   /** Energy delivered to the surface (water or ground), Mt. */
   surfaceEnergyMt: Percentiles
+  /** Energy deposited in the air (airburst and entry losses), Mt; air + surface = entry energy. */
+  airEnergyMt?: Percentiles
+  /** The tsunami source laws whose spread the tsunami figures carry (see SiteAssessment.tsunamiBand). */
+  tsunamiSourceLaws?: TsunamiSourceLaw[]
   /** Over the ocean, non-airburst samples only; null when none. */
   waterCavityDiameterM: Percentiles | null
   sites: SiteAssessment[]

@@ -61,6 +61,7 @@ const IMPACTOR: Record<PercentileKey<Assessment>, Meta> = {
   energyMt: { label: 'Impact energy (TNT equivalent)', dimension: 'energy', unit: 'Mt' },
   burstAltitudeKm: { label: 'Airburst altitude', dimension: 'length', unit: 'km', whenMissing: 'n/a (no airburst among the samples)' },
   surfaceEnergyMt: { label: 'Energy reaching the surface', dimension: 'energy', unit: 'Mt' },
+  airEnergyMt: { label: 'Energy deposited in the air', dimension: 'energy', unit: 'Mt', whenMissing: 'n/a (model version without this figure)' },
   waterCavityDiameterM: { label: 'Transient cavity in the water', dimension: 'length', unit: 'm', whenMissing: 'n/a (no surface impact at sea among the samples)' },
 }
 
