@@ -5,9 +5,10 @@ import { evaluateSite, newSiteScratch, type SiteResult, type SiteScratch } from 
 import { percentiles } from './stats'
 import { palermoScale, torinoScale } from './scales'
 import { BLAST } from './blast'
+import { OCEAN, TSUNAMI_SOURCE_LAWS } from './ocean'
 
 /** Engine version, stored with every assessment. */
-export const MODEL_VERSION = 'brinkwater-hazard/1.0.0'
+export const MODEL_VERSION = 'brinkwater-hazard/2.0.0'
 /** Default number of realisations, default seed, and the largest sample count accepted. */
 export const DEFAULT_SAMPLES = 20_000
 export const DEFAULT_SEED = 1
@@ -21,9 +22,10 @@ export interface AssessOptionsInput { samples?: number; seed?: number; strengthM
 /**
  * Monte Carlo hazard assessment of an orbit solution for a list of sites (hazard-model.md §6).
  * Draws `samples` realisations with a seeded xoroshiro128+ generator (same solution, sites and seed →
- * identical figures), runs size (Bowell et al. 1989), entry (Collins, Melosh & Marcus 2005, MAPS 40(6)
- * 817–840), airblast, thermal and seismic effects (Collins 2005), ocean cavity, rim wave, Green's law
- * and run-up (Collins 2005; Ward & Asphaug 2000; Synolakis 1987, JFM 185), and reports 5/50/95
+ * identical figures; the whole safe-integer seed is used), runs size (Bowell et al. 1989), entry (Collins,
+ * Melosh & Marcus 2005, MAPS 40(6) 817–840), airblast, thermal and seismic effects (Collins 2005), ocean
+ * cavity, the tsunami source band (Collins 2005 rim wave to Ward & Asphaug 2000, drawn per realisation as
+ * model uncertainty), energy-flux shoaling and run-up (Synolakis 1987, JFM 185), and reports 5/50/95
  * percentiles. Torino (Binzel 2000, PSS 48) and Palermo (Chesley et al. 2002, Icarus 159) use the
  * solution's impact probability, the MEDIAN entry energy and the years from epoch to impact.
  *
@@ -31,7 +33,7 @@ export interface AssessOptionsInput { samples?: number; seed?: number; strengthM
  * share of the impact realisations. Multiply by `impactProbability` for the absolute figure.
  * Units are in the field names (m, kg, Mt TNT, km, kPa, m/s, MJ/m², minutes).
  * @param solution validated orbit solution; sites places to evaluate; options samples (default 20 000),
- *   seed (default 1), strengthModel (`density`, Collins 2005 eq. 9, default; or `log-uniform` 0.1–10 MPa,
+ *   seed (default 1; any safe integer, |seed| <= 2^53 - 1), strengthModel (`density`, Collins 2005 eq. 9, default; or `log-uniform` 0.1–10 MPa,
  *   Mathias et al. 2017, Icarus 289)
  */
 export function assessSolution(solution: OrbitSolution, sites: Site[], options: AssessOptionsInput = {}): Assessment {
@@ -41,7 +43,7 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
     strengthModel: options.strengthModel ?? 'density',
   }
   if (!Number.isInteger(opts.samples) || opts.samples < 1 || opts.samples > MAX_SAMPLES) throw new RangeError(`samples must be an integer in 1..${MAX_SAMPLES}`)
-  if (!Number.isInteger(opts.seed)) throw new RangeError('seed must be an integer')
+  if (!Number.isSafeInteger(opts.seed)) throw new RangeError('seed must be a safe integer (|seed| <= 2^53 - 1)')
   const ws = workspace(opts.samples)
   const S = drawSamples(solution, opts.samples, opts.seed, opts.strengthModel, ws.S)
   const n = S.n
@@ -67,6 +69,7 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
     oceanImpactProbability: S.counts.sea / n,
     tsunamiProbability: tsu / n,
     surfaceEnergyMt: percentiles(S.surfaceEnergyMt, n),
+    tsunamiSourceLaws: TSUNAMI_SOURCE_LAWS.map((l) => ({ ...l })),
     waterCavityDiameterM: tsu > 0 ? percentiles(gather(S, S.cavityM, FLAG_TSUNAMI, tsu), tsu) : null,
     sites: results.map((r) => r.assessment),
     exposedPopulation,
@@ -119,20 +122,28 @@ function warnings(solution: OrbitSolution, S: SampleSet, results: SiteResult[], 
   if (S.counts.highBurst > 0) w.push({ code: 'high-burst', fraction: S.counts.highBurst / n,
     message: `Scaled burst height above ${BLAST.highBurstScaledM} m/kt^1/3, beyond the reference data of the blast fit; ground overpressure is extrapolated and was under-predicted for Chelyabinsk (Brown et al. 2013).` })
   if (tsu > 0) w.push({ code: 'tsunami-indicative', fraction: tsu / n,
-    message: 'Tsunami figures are indicative: rim-wave scaling decaying as 1/r from the cavity (Collins et al. 2005; Wünnemann et al. 2010), may be low by a factor of 2; no bathymetry; impact waves are dispersive and the largest arrive after the first.' })
+    message: 'Tsunami figures are indicative and carry the spread of the published source laws, a factor of about 5 at the '
+      + 'source: from the rim wave of Collins et al. 2005 (0.07 of the cavity, 1/r decay) to the cavity-depth wave of linear '
+      + 'theory (Ward & Asphaug 2000). Each realisation draws a log-uniform weight between the two; each site shows both '
+      + 'laws separately as a band. No bathymetry beyond each site\'s shelf profile; impact waves are dispersive and the '
+      + 'largest arrive after the first.' })
   if (S.counts.sea > 0 && !(solution.waterDepthM > 0)) w.push({ code: 'depth-assumed', fraction: S.counts.sea / n,
-    message: `The solution gives no water depth; sea impacts assume ${ASSUMED_DEPTH_M} m.` })
+    message: `The solution gives a water depth of 0 m (nominal point on land) but ${Math.round(100 * S.counts.sea / n)} % of the `
+      + `impact points fall in the sea; they use ${ASSUMED_DEPTH_M} m, a typical shelf depth. Give the depth for ocean figures that matter.` })
   if (tsu > 0 && solution.waterDepthM > 8000) w.push({ code: 'depth-out-of-range', fraction: tsu / n,
     message: 'Water depth at the impact exceeds 8000 m, beyond the tested range of the ocean model.' })
   if (S.counts.seafloor > 0) w.push({ code: 'cavity-reaches-seafloor', fraction: S.counts.seafloor / n,
-    message: 'The transient cavity is deeper than the sea: the wave height is capped at the water depth and a sea-floor crater forms; the rim-wave scaling is least reliable here.' })
-  if (air > 0 && tsu === 0 && S.counts.sea > 0) w.push({ code: 'airburst-over-sea', fraction: air / n,
-    message: 'Airbursts over the sea make no significant tsunami (Berger & Goodman 2018; Morrison & Venkatapathy 2017).' })
+    message: 'The transient cavity is deeper than the sea: the wave at the source is capped at the water depth and a sea-floor crater forms; the source laws are least reliable here.' })
+  if (air > 0 && S.counts.sea > 0) w.push({ code: 'airburst-over-sea', fraction: air / n,
+    message: 'An airburst over the sea puts much less energy into the water than a surface impact of the same body '
+      + '(Berger & Goodman 2018); only what reaches the surface makes a wave, and a tsunami is counted when the wave at its '
+      + `source reaches ${OCEAN.tsunamiSourceMinM} m.` })
   for (const r of results) {
     const site = r.assessment
     if (!r.depthInRange) w.push({ code: 'depth-out-of-range', siteId: site.siteId, message: `Offshore depth of ${site.name} is outside 1–8000 m.` })
-    if (r.breakingFraction > 0 && tsu > 0) w.push({ code: 'wave-breaking', siteId: site.siteId, fraction: r.breakingFraction * tsu / n,
-      message: `At ${site.name} the wave breaks before the shore (height over 0.78 of the offshore depth, McCowan 1894) or beyond Synolakis's non-breaking limit; run-up uses the breaking-wave fit (Synolakis 1987), indicative.` })
+    if (r.breakingFraction > 0) w.push({ code: 'wave-breaking', siteId: site.siteId, fraction: r.breakingFraction,
+      message: `At ${site.name} the wave breaks before the shore (height over 0.78 of the depth, McCowan 1894, or beyond Synolakis's `
+        + 'non-breaking limit); its run-up follows the breaking branch of Synolakis 1987, made continuous, from the breaking depth: indicative.' })
   }
   return w
 }

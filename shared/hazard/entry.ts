@@ -102,6 +102,8 @@ export interface EntryScratch {
   burstAltitudeM: number
   /** Speed at the burst (airburst) or at the surface, m/s. */
   finalSpeedMS: number
+  /** Speed with which the body or its debris reaches the surface, m/s (0: nothing reaches it). */
+  surfaceSpeedMS: number
   airburst: boolean
   massKg: number
   energyJ: number
@@ -111,7 +113,7 @@ export interface EntryScratch {
 
 /** A fresh scratch record for `entryInto` (SI units, see EntryScratch). */
 export function newEntryScratch(): EntryScratch {
-  return { strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, airburst: false, massKg: 0, energyJ: 0, energyAirJ: 0, energySurfaceJ: 0 }
+  return { strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, surfaceSpeedMS: 0, airburst: false, massKg: 0, energyJ: 0, energyAirJ: 0, energySurfaceJ: 0 }
 }
 
 /**
@@ -149,6 +151,7 @@ export function entryInto(out: EntryScratch, L0: number, rhoI: number, v0: numbe
     out.breakupAltitudeM = zStar
     out.burstAltitudeM = zb
     out.finalSpeedMS = vb
+    out.surfaceSpeedMS = 0
     out.airburst = true
     out.energyAirJ = 0.5 * m * (v0 * v0 - vb * vb)
     out.energySurfaceJ = 0
@@ -163,6 +166,7 @@ function setSurface(out: EntryScratch, m: number, v0: number, vs: number, zStar:
   out.breakupAltitudeM = zStar
   out.burstAltitudeM = NaN
   out.finalSpeedMS = vs
+  out.surfaceSpeedMS = vs
   out.airburst = false
   out.energySurfaceJ = 0.5 * m * vs * vs
   out.energyAirJ = Math.max(0, 0.5 * m * (v0 * v0 - vs * vs))

@@ -6,17 +6,24 @@ import { isLand } from './land'
 import { machOnsetScaledM, BLAST } from './blast'
 import { fireballRadiusM, THERMAL } from './thermal'
 import { seismicMagnitude } from './seismic'
-import { cavityDiameterSI, impactWaveSpeedMS, OCEAN } from './ocean'
+import { cavityDiameterSI, impactWaveSpeedMS, wavelengthGridPoint, OCEAN } from './ocean'
 import { SIZE_LAW_KM } from './size'
 import { DEG, J_PER_KT, J_PER_MT, WATER_DENSITY_KGM3 } from './units'
 
-/** Bit flags of a realisation: impact point at sea, airburst, tsunami (sea and not an airburst), cavity reaches the sea floor. */
+/**
+ * Bit flags of a realisation: impact point at sea, airburst, tsunami (the body or its debris reaches the sea
+ * and the source amplitude, mixed between the source laws, is at least OCEAN.tsunamiSourceMinM), cavity reaches the sea floor.
+ */
 export const FLAG_SEA = 1
 export const FLAG_AIRBURST = 2
 export const FLAG_TSUNAMI = 4
 export const FLAG_SEAFLOOR = 8
 
-/** Water depth assumed for a sea impact when the solution gives 0 m (a shelf sea; common practice, no source). */
+/**
+ * Water depth used for the realisations that strike the sea when the solution gives 0 m (its nominal point
+ * on land, the corridor reaching the coast): a typical shelf depth (common practice, no source). The
+ * assessment names it in the warning `depth-assumed`; a scenario whose nominal point is at sea must give the depth.
+ */
 export const ASSUMED_DEPTH_M = 100
 const LN10_5 = Math.LN10 / 5
 const LN_1000 = Math.log(1000)
@@ -38,10 +45,11 @@ export const REC = {
   thK: 9, zb: 10, rf: 11, burn: 12,
   /** Seismic source magnitude (NaN: nothing reaches the ground). */
   mag: 13,
-  /** Tsunami (0 when none): rim amplitude m, cavity radius m, amplitude x radius m², its log, and
-   * 1/(60 c) of the dominant wave (min/m). */
-  rimA: 14, rimR: 15, AR: 16, lnAR: 17, invC60: 18,
-  size: 19,
+  /** Ocean wave (0 when the sea gets no energy): rim amplitude m mixed between the source laws, cavity radius m,
+   * rim amplitude of the low and of the high law m, 1/(60 c_g) of the dominant wave (min/m), and the
+   * dominant wavelength's place on WAVELENGTH_GRID (index, fraction). */
+  rimA: 14, rimR: 15, rimLo: 16, rimHi: 17, invC60: 18, lamJ: 19, lamF: 20,
+  size: 21,
 } as const
 
 /** The realisations: summary columns plus the packed site-loop records. */
@@ -149,24 +157,37 @@ export function drawSamples(solution: OrbitSolution, n: number, seed: number, st
     R[o + REC.burn] = fire ? Math.exp(-(same ? 3 * lnS - LN_1000 : Math.log(eTh / J_PER_MT)) / 6) : 0
     let eGround = air ? 0 : scr.energySurfaceJ
     if (sea) counts.sea++
-    let dtc = 0, rimA = 0, waveC = 0
-    if (sea && !air) {
+    // Model uncertainty of the tsunami source: a log-uniform weight between the low and the high law, drawn
+    // for every realisation so that the random stream does not depend on where the point falls.
+    const lawW = rng.uniform()
+    let dtc = 0, rimA = 0, rimLo = 0, rimHi = 0, waveC = 0, lamJ = 0, lamF = 0
+    const vs = scr.surfaceSpeedMS
+    if (sea && vs > 0) {
+      // Whatever reaches the sea surface (an impact, or the debris of a low burst) opens a cavity that is
+      // continuous in its speed; the wave follows the cavity.
       const sinT = Math.sin(theta)
-      dtc = cavityDiameterSI(D, rho, scr.finalSpeedMS, sinT)
-      flags |= FLAG_TSUNAMI
-      rimA = Math.min(OCEAN.rimWaveFactor * dtc, h)
+      dtc = cavityDiameterSI(D, rho, vs, sinT)
+      rimLo = Math.min(OCEAN.rimWaveFactor * dtc, h)
+      rimHi = Math.min(OCEAN.cavityDepthRatio * dtc, h)
+      rimA = rimLo > 0 ? rimLo * Math.exp(lawW * Math.log(rimHi / rimLo)) : 0
+      if (rimA >= OCEAN.tsunamiSourceMinM) flags |= FLAG_TSUNAMI
       waveC = impactWaveSpeedMS(dtc, h)
+      const g = wavelengthGridPoint(2 * dtc)
+      lamJ = g.j
+      lamF = g.f
       // Transient cavity depth D/2.828 (EIEP) deeper than the sea: the cavity reaches the sea floor.
-      if (dtc / 2.828 > h) { flags |= FLAG_SEAFLOOR; counts.seafloor++ }
-      const vsf = scr.finalSpeedMS * Math.exp(-3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient * h / (2 * rho * D * sinT))
+      if (dtc * OCEAN.cavityDepthRatio > h) { flags |= FLAG_SEAFLOOR; counts.seafloor++ }
+      const vsf = vs * Math.exp(-3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient * h / (2 * rho * D * sinT))
       eGround = 0.5 * scr.massKg * vsf * vsf
     }
     S.cavityM[i] = dtc
     R[o + REC.rimA] = rimA
     R[o + REC.rimR] = dtc / 2
-    R[o + REC.AR] = rimA * dtc / 2
-    R[o + REC.lnAR] = rimA > 0 ? Math.log(rimA * dtc / 2) : 0
+    R[o + REC.rimLo] = rimLo
+    R[o + REC.rimHi] = rimHi
     R[o + REC.invC60] = waveC > 0 ? 1 / (60 * waveC) : 0
+    R[o + REC.lamJ] = lamJ
+    R[o + REC.lamF] = lamF
     R[o + REC.mag] = eGround > 0 ? seismicMagnitude(eGround) : NaN
     S.flags[i] = flags
   }

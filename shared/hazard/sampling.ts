@@ -1,4 +1,4 @@
-import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus'
+import { xoroshiro128plusFromState } from 'pure-rand/generator/xoroshiro128plus'
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64'
 import type { RandomGenerator } from 'pure-rand/types/RandomGenerator'
 import type { TaxonomicClass } from './schema'
@@ -11,14 +11,20 @@ const TWO_M32 = 2 ** -32
  * Seeded random numbers for the Monte Carlo: xoroshiro128+ from pure-rand, 53-bit uniforms (pure-rand
  * uniformFloat64) and, for the normal, 32-bit uniforms in the polar form of the Box–Muller transform
  * (Marsaglia & Bray 1964, SIAM Review 6, 260–264; tails reach about 6.6 sigma). Same seed, same
- * sequence on every machine; no Math.random.
+ * sequence on every machine; no Math.random. The whole seed counts: any safe integer (|seed| <= 2^53 - 1)
+ * fills the 128-bit state, so seeds that differ only above bit 32 give different sequences.
  */
 export class HazardRng {
   private readonly g: RandomGenerator
   private spare = NaN
 
   constructor(seed: number) {
-    this.g = xoroshiro128plus(seed | 0)
+    if (!Number.isSafeInteger(seed)) throw new RangeError('seed must be a safe integer (|seed| <= 2^53 - 1)')
+    // Low 32 bits as pure-rand's xoroshiro128plus(seed) places them, the high bits in the other half of the
+    // state (zero for 32-bit seeds, which keep their former sequences).
+    const lo = seed | 0
+    const hi = (seed - lo) / 2 ** 32 | 0
+    this.g = xoroshiro128plusFromState([~hi, ~lo, lo, hi])
     // xoroshiro128+ seeded from a small integer needs a few rounds to mix (common practice, no source).
     for (let k = 0; k < 32; k++) this.g.next()
   }
@@ -74,17 +80,19 @@ export function sampleAlbedoWright2016(rng: HazardRng): number {
 export const MIN_ALBEDO = 0.02
 
 /**
- * Albedo by class: median and the one-sigma log spread. S 0.26 (+0.04/−0.03), Q 0.29 (+0.05/−0.04),
- * V 0.42 (+0.13/−0.11), C 0.13 (+0.06/−0.05): Thomas et al. 2011 (AJ 142, 85), whose ranges are the
- * uncertainty of the class mean; we use them as the object's spread (log-normal), an approximation.
- * M 0.15 ± 40 %: Tholen M types have moderate albedos of about 0.1–0.3 (Tholen 1984, from memory) —
- * indicative.
+ * Albedo by class: median and the one-sigma log spread of single objects (not of the class mean). Medians
+ * S 0.26, Q 0.29, V 0.42, C 0.13: Thomas et al. 2011 (AJ 142, 85), whose ± ranges are uncertainties of the
+ * class means. Object-to-object spreads: the standard deviations of the NEOWISE albedos of spectrally
+ * classified asteroids, Mainzer et al. 2011 (ApJ 741, 90, table of mean pV and sigma by class; values from
+ * memory, about 0.08 on 0.23 for S and Q, 0.12 on 0.35 for V, 0.05 on 0.07–0.10 for C), as log spreads:
+ * S and Q 0.35, V 0.33, C 0.55. M 0.15 with 0.4: Tholen M types have moderate albedos of about 0.1–0.3
+ * (Tholen 1984, from memory) — indicative.
  */
 export const CLASS_ALBEDO: Record<Exclude<TaxonomicClass, 'unknown'>, { median: number; sigmaLn: number }> = {
-  S: { median: 0.26, sigmaLn: 0.14 },
-  Q: { median: 0.29, sigmaLn: 0.16 },
-  V: { median: 0.42, sigmaLn: 0.29 },
-  C: { median: 0.13, sigmaLn: 0.43 },
+  S: { median: 0.26, sigmaLn: 0.35 },
+  Q: { median: 0.29, sigmaLn: 0.35 },
+  V: { median: 0.42, sigmaLn: 0.33 },
+  C: { median: 0.13, sigmaLn: 0.55 },
   M: { median: 0.15, sigmaLn: 0.4 },
 }
 

@@ -5,7 +5,7 @@ import { FLAG_TSUNAMI, REC } from './sample'
 import { peakWindMS, BLAST } from './blast'
 import { visibleFraction } from './thermal'
 import { effectiveMagnitude } from './seismic'
-import { OCEAN, breakingLimit, longWaveSpeedMS } from './ocean'
+import { OCEAN, breakingLimit, longWaveSpeedMS, shoreProfile, runUpOnProfileM, toeHeightForRunUpM } from './ocean'
 import { orderStats, toPercentiles } from './stats'
 import { DEG, EARTH_RADIUS_M } from './units'
 
@@ -27,22 +27,35 @@ function windThresholdPa(u: number): number {
 }
 
 /** Scratch columns reused from site to site. */
-export interface SiteScratch { dist: Float64Array; op: Float64Array; th: Float64Array; mag: Float64Array; amp: Float64Array; run: Float64Array; t1: Float64Array; t2: Float64Array; os: Float64Array }
+export interface SiteScratch {
+  dist: Float64Array; op: Float64Array; th: Float64Array; mag: Float64Array
+  /** Offshore amplitude and unbroken toe height: mixed laws, low law, high law. */
+  amp: Float64Array; toe: Float64Array; ampLo: Float64Array; toeLo: Float64Array; ampHi: Float64Array; toeHi: Float64Array
+  t1: Float64Array; t2: Float64Array; os: Float64Array
+}
 /** Per-site working columns for up to n realisations. */
 export function newSiteScratch(n: number): SiteScratch {
   // Columns may be longer than the sample count (reused); only the first n entries are read.
   const f = () => new Float64Array(n)
-  return { dist: f(), op: f(), th: f(), mag: f(), amp: f(), run: f(), t1: f(), t2: f(), os: new Float64Array(9) }
+  return {
+    dist: f(), op: f(), th: f(), mag: f(), amp: f(), toe: f(), ampLo: f(), toeLo: f(), ampHi: f(), toeHi: f(),
+    t1: f(), t2: f(), os: new Float64Array(9),
+  }
 }
 
-/** A site's assessment plus what the warnings need: share of tsunami realisations that break, and whether the offshore depth is in 1–8000 m. */
+/**
+ * A site's assessment plus what the warnings need: the share of all realisations whose wave breaks before
+ * the shore at this site, and whether the offshore depth is in 1–8000 m.
+ */
 export interface SiteResult { assessment: SiteAssessment; breakingFraction: number; depthInRange: boolean }
 
 /**
  * Evaluates one site over every realisation: great-circle distance, overpressure (Collins 2005), wind,
- * thermal exposure, effective seismic magnitude, offshore tsunami amplitude (rim wave, Green's law,
- * breaking cap), earliest long-wave arrival and run-up (Synolakis 1987), and the share of realisations
- * that exceed each threshold of THRESHOLDS. All probabilities are conditional on impact.
+ * thermal exposure, effective seismic magnitude, the tsunami (offshore amplitude and run-up under the mixed
+ * source laws and under each law, see ocean.ts: energy-flux shoaling over the site's shore profile, breaking
+ * at 0.78 of the depth, continuous Synolakis 1987 run-up), earliest long-wave and main-wave (group speed)
+ * arrivals, and the share of realisations that exceed each threshold of THRESHOLDS. All probabilities are
+ * conditional on impact.
  */
 export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResult {
   const n = S.n
@@ -51,12 +64,13 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   // A site without an offshore depth is inland: no tsunami figures for it.
   const coastal = site.offshoreDepthM !== undefined
   const d2 = site.offshoreDepthM ?? 1
-  const slope = site.beachSlopeDeg ?? OCEAN.defaultBeachSlopeDeg
-  const cot = 1 / Math.tan(slope * DEG)
-  const sqrtCot = Math.sqrt(cot)
-  const limit = breakingLimit(cot)
-  const green = Math.pow(S.seaDepthM / d2, 0.25)
+  // Per-site constants of the shore profile: shoaling tables against wavelength, run-up against toe height.
+  const shore = coastal ? shoreProfile({ openDepthM: S.seaDepthM, offshoreDepthM: d2, shelfWidthKm: site.shelfWidthKm, beachSlopeDeg: site.beachSlopeDeg }) : undefined
+  const KS = shore?.toOffshore ?? new Float64Array(2), KT = shore?.toToe ?? new Float64Array(2)
   const cap = OCEAN.breakingIndex * d2
+  // A wave breaks before the shore once its toe height passes Synolakis's non-breaking limit (below 0.78 d_t).
+  const breakToeM = shore ? breakingLimit(shore.cotBeach) * shore.toeDepthM : Infinity
+  const runUpOf = (h: number) => shore ? runUpOnProfileM(shore, h) : 0
   const cLong = longWaveSpeedMS(S.seaDepthM)
   // Thresholds by kind, ascending, so each realisation counts the levels it passes with an early exit.
   // Wind thresholds become overpressures (the wind law is monotone).
@@ -64,20 +78,19 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
     .map((t, idx) => ({ idx, v: t.kind === 'wind' ? windThresholdPa(t.value) : t.value, k: t.kind === 'thermal' ? 'th' : t.kind === 'runUp' ? 'run' : 'p' }))
     .filter((t) => t.k === k).sort((a, b) => a.v - b.v)
   const P = levels('p'), TH = levels('th'), RU = levels('run')
-  const pv = Float64Array.from(P, (t) => t.v), tv = Float64Array.from(TH, (t) => t.v), rv = Float64Array.from(RU, (t) => t.v)
+  const pv = Float64Array.from(P, (t) => t.v), tv = Float64Array.from(TH, (t) => t.v)
+  // Run-up thresholds as toe heights (run-up is non-decreasing in the toe height), so the loop needs no run-up.
+  const rv = Float64Array.from(RU, (t) => shore ? toeHeightForRunUpM(shore, t.v) : Infinity)
   const pHits = new Float64Array(P.length + 1), tHits = new Float64Array(TH.length + 1), rHits = new Float64Array(RU.length + 1)
   const nP = pv.length, nTv = tv.length, nR = rv.length
-  const { dist, op, th, mag, amp, run, t1, t2 } = w
+  const { dist, op, th, mag, amp, toe, ampLo, toeLo, ampHi, toeHi, t1, t2 } = w
   const Rc = S.rec
   const F = S.flags
-  let m = 0, broken = 0, nTh = 0, nMag = 0
+  let m = 0, mt = 0, broken = 0, nTh = 0, nMag = 0
   // Least and greatest value of each column, so that orderStats can skip a pass.
   let dLo = Infinity, dHi = -Infinity, pLo = Infinity, pHi = -Infinity, thLo = Infinity, thHi = -Infinity
-  let mLo = Infinity, mHi = -Infinity, aLo = Infinity, aHi = -Infinity, ruLo = Infinity, ruHi = -Infinity
+  let mLo = Infinity, mHi = -Infinity
   let t1Lo = Infinity, t1Hi = -Infinity, t2Lo = Infinity, t2Hi = -Infinity
-  const lnGreenOverD2 = Math.log(green / d2)
-  const lnCapOverD2 = Math.log(OCEAN.breakingIndex)
-  const invD2 = 1 / d2
   const invCLong60 = 1 / (60 * cLong)
   for (let i = 0, o = 0; i < n; i++, o += REC.size) {
     let dot = Rc[o]! * sx + Rc[o + 1]! * sy + Rc[o + 2]! * sz
@@ -135,33 +148,40 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
         if (me > mHi) mHi = me
       }
     }
-    if (coastal && F[i]! & FLAG_TSUNAMI) {
-      // Offshore amplitude a and ln(a/d2), from the 1/r decay beyond the cavity radius, in log form.
-      let a: number, lh: number
-      if (r > Rc[o + 15]!) { a = Rc[o + 16]! * green * invR; lh = Rc[o + 17]! - lr + lnGreenOverD2 }
-      else { a = Rc[o + 14]! * green; lh = Math.log(a * invD2) }
-      if (a > cap) { a = cap; lh = lnCapOverD2 }
-      const hd = a * invD2
-      const R = hd < limit ? d2 * 2.831 * sqrtCot * Math.exp(1.25 * lh) : d2 * 1.109 * Math.exp(0.582 * lh)
-      // Breaks on the shelf (McCowan cap) or on the beach (beyond the Synolakis non-breaking limit).
-      if (a >= cap || hd >= limit) broken++
-      c = 0
-      while (c < nR && R >= rv[c]!) c++
-      rHits[c]!++
-      const u1 = r * invCLong60, u2 = r * Rc[o + 18]!
-      amp[m] = a
-      run[m] = R
-      t1[m] = u1
-      t2[m] = u2
+    const rimA = Rc[o + REC.rimA]!
+    if (coastal && rimA > 0) {
+      // Every realisation that puts energy into the sea makes a wave (continuous in the surface speed).
+      // Open-ocean decay 1/r beyond the cavity radius (both source laws), then the site's shoaling factors
+      // to the offshore depth and to the beach toe at the dominant wavelength (tabulated, interpolated).
+      const rc = Rc[o + REC.rimR]!
+      const dec = r > rc ? rc * invR : 1
+      const j = Rc[o + REC.lamJ]!, f = Rc[o + REC.lamF]!
+      const ks = KS[j]! + f * (KS[j + 1]! - KS[j]!), kt = KT[j]! + f * (KT[j + 1]! - KT[j]!)
+      const dMix = rimA * dec, dLo = Rc[o + REC.rimLo]! * dec, dHi = Rc[o + REC.rimHi]! * dec
+      // Offshore amplitudes never exceed the breaking height there (McCowan 1894).
+      const a = dMix * ks, aL = dLo * ks, aH = dHi * ks
+      amp[m] = a < cap ? a : cap
+      ampLo[m] = aL < cap ? aL : cap
+      ampHi[m] = aH < cap ? aH : cap
+      const ht = dMix * kt
+      toe[m] = ht
+      toeLo[m] = dLo * kt
+      toeHi[m] = dHi * kt
       m++
-      if (a < aLo) aLo = a
-      if (a > aHi) aHi = a
-      if (R < ruLo) ruLo = R
-      if (R > ruHi) ruHi = R
-      if (u1 < t1Lo) t1Lo = u1
-      if (u1 > t1Hi) t1Hi = u1
-      if (u2 < t2Lo) t2Lo = u2
-      if (u2 > t2Hi) t2Hi = u2
+      if (ht >= breakToeM) broken++
+      c = 0
+      while (c < nR && ht >= rv[c]!) c++
+      rHits[c]!++
+      if (F[i]! & FLAG_TSUNAMI) {
+        const u1 = r * invCLong60, u2 = r * Rc[o + REC.invC60]!
+        t1[mt] = u1
+        t2[mt] = u2
+        mt++
+        if (u1 < t1Lo) t1Lo = u1
+        if (u1 > t1Hi) t1Hi = u1
+        if (u2 < t2Lo) t2Lo = u2
+        if (u2 > t2Hi) t2Hi = u2
+      }
     }
   }
   const exceedance = {} as Record<ThresholdKey, number>
@@ -175,6 +195,8 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   const o = w.os
   const pct = (x: Float64Array, count: number, zeros: number, lo: number, hi: number) => { orderStats(x, count, o, zeros, lo, hi); return toPercentiles(o) }
   const zero = { p5: 0, p50: 0, p95: 0 }
+  // Run-up percentiles are those of the toe height mapped through the site's non-decreasing run-up law.
+  const runUpPct = (x: Float64Array) => { orderStats(x, m, o, n - m); return toPercentiles(o, runUpOf) }
   orderStats(op, n, o, 0, pLo, pHi)
   const overpressureKPa = toPercentiles(o, (v) => v / 1000)
   const windMS = toPercentiles(o, peakWindMS)
@@ -188,12 +210,16 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
     windMS,
     thermalMJM2: pct(th, nTh, n - nTh, thLo, thHi),
     seismicMagnitude: pct(mag, nMag, n - nMag, mLo, mHi),
-    tsunamiAmplitudeM: pct(amp, m, n - m, aLo, aHi),
-    tsunamiArrivalMin: m > 0 ? pct(t1, m, 0, t1Lo, t1Hi) : zero,
-    tsunamiMainArrivalMin: m > 0 ? pct(t2, m, 0, t2Lo, t2Hi) : zero,
-    runUpM: pct(run, m, n - m, ruLo, ruHi),
+    tsunamiAmplitudeM: pct(amp, m, n - m, NaN, NaN),
+    tsunamiArrivalMin: mt > 0 ? pct(t1, mt, 0, t1Lo, t1Hi) : zero,
+    tsunamiMainArrivalMin: mt > 0 ? pct(t2, mt, 0, t2Lo, t2Hi) : zero,
+    runUpM: runUpPct(toe),
+    tsunamiBand: {
+      low: { amplitudeM: pct(ampLo, m, n - m, NaN, NaN), runUpM: runUpPct(toeLo) },
+      high: { amplitudeM: pct(ampHi, m, n - m, NaN, NaN), runUpM: runUpPct(toeHi) },
+    },
     exceedance,
   }
   const inRange = (x: number) => x >= 1 && x <= 8000
-  return { assessment, breakingFraction: m > 0 ? Math.min(1, broken / m) : 0, depthInRange: !coastal || inRange(d2) }
+  return { assessment, breakingFraction: broken / n, depthInRange: !coastal || inRange(d2) }
 }

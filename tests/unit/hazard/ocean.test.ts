@@ -68,10 +68,12 @@ describe('ocean impacts (Collins, Melosh & Marcus 2005, MAPS 40(6); tsunami figu
     const r = runUpM({ waveHeightM: 0.5, depthM: 50, beachSlopeDeg: slope })
     expect(r.breaking).toBe(false)
     expect(r.runUpM / 50).toBeCloseTo(0.03988, 4)
-    // Beyond the limit the breaking fit R/d = 1.109 (H/d)^0.582 (Synolakis 1987; constants from memory).
+    // Beyond the limit the continuous breaking branch stays within 10 % of Synolakis's breaking fit
+    // R/d = 1.109 (H/d)^0.582 on his own laboratory slope (Synolakis 1987; constants from memory).
     const b = runUpM({ waveHeightM: 5, depthM: 50, beachSlopeDeg: slope })
     expect(b.breaking).toBe(true)
-    expect(b.runUpM / 50).toBeCloseTo(1.109 * 0.1 ** 0.582, 8)
+    expect(b.runUpM / 50 / (1.109 * 0.1 ** 0.582)).toBeGreaterThan(1)
+    expect(b.runUpM / 50 / (1.109 * 0.1 ** 0.582)).toBeLessThan(1.1)
   })
 
   it('travels at sqrt(g h): 198 m/s over 4000 m (long-wave speed; common practice, no source)', () => {
