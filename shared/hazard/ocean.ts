@@ -66,11 +66,13 @@ export function waterCavityDiameterM(i: { diameterM: number; densityKgM3: number
 }
 
 const G_POW = Math.pow(G_MS2, -0.22)
+// Module-level copies for the Monte Carlo: imported bindings are read through accessors in some loaders.
+const G = G_MS2, INV_RHO_W = 1 / WATER_DENSITY_KGM3
 
 /** `waterCavityDiameterM` in SI numbers (m, kg/m³, m/s, sin of the angle), for the Monte Carlo. */
 export function cavityDiameterSI(diameterM: number, densityKgM3: number, speedMS: number, sinAngle: number): number {
   if (!(speedMS > 0)) return 0
-  return 1.365 * Math.cbrt(densityKgM3 / WATER_DENSITY_KGM3 * sinAngle)
+  return 1.365 * Math.cbrt(densityKgM3 * INV_RHO_W * sinAngle)
     * Math.exp(0.78 * Math.log(diameterM) + 0.44 * Math.log(speedMS)) * G_POW
 }
 
@@ -131,9 +133,9 @@ export function wavenumberFor(omega: number, depthM: number): number {
 /** `c_g = (c/2)(1 + 2kh / sinh 2kh)` for wavenumber k over depth h (m/s); the long-wave limit is sqrt(g h). */
 function groupSpeedK(k: number, depthM: number): number {
   const kh = k * depthM
-  const c = Math.sqrt(G_MS2 / k * Math.tanh(kh))
+  const c = Math.sqrt(G / k * Math.tanh(kh))
   const x = 2 * kh
-  return Math.min(0.5 * c * (1 + (x < 700 ? x / Math.sinh(x) : 0)), Math.sqrt(G_MS2 * depthM))
+  return Math.min(0.5 * c * (1 + (x < 700 ? x / Math.sinh(x) : 0)), Math.sqrt(G * depthM))
 }
 
 /**
@@ -225,14 +227,16 @@ export function impactWaveSpeedMS(cavityDiameterM: number, depthM: number): numb
 export const WAVELENGTH_GRID = { lnMin: 0, lnMax: Math.log(2e6), n: 97 } as const
 const LN_STEP = (WAVELENGTH_GRID.lnMax - WAVELENGTH_GRID.lnMin) / (WAVELENGTH_GRID.n - 1)
 
-/** Index j and fraction f of a wavelength on WAVELENGTH_GRID (clamped to its ends): value = T[j] + f (T[j+1] - T[j]). */
-export function wavelengthGridPoint(wavelengthM: number): { j: number; f: number } {
-  const u = (Math.log(wavelengthM) - WAVELENGTH_GRID.lnMin) / LN_STEP
-  if (!(u > 0)) return { j: 0, f: 0 }
-  if (u >= WAVELENGTH_GRID.n - 1) return { j: WAVELENGTH_GRID.n - 2, f: 1 }
-  const j = Math.floor(u)
-  return { j, f: u - j }
+/**
+ * Position u of a wavelength on WAVELENGTH_GRID, clamped to [0, n - 1 - 1e-9]: with j = floor(u) and
+ * f = u - j a tabulated value is T[j] + f (T[j+1] - T[j]).
+ */
+export function wavelengthGridPosition(wavelengthM: number): number {
+  const u = (Math.log(wavelengthM) - WAVELENGTH_GRID.lnMin) * INV_STEP
+  return u > 0 ? (u < U_MAX ? u : U_MAX) : 0
 }
+const INV_STEP = 1 / LN_STEP
+const U_MAX = WAVELENGTH_GRID.n - 1 - 1e-9
 
 /** Inputs of a site's shore profile (metres and degrees; absent fields take OCEAN's defaults). */
 export interface ShoreProfileInput { openDepthM: number; offshoreDepthM: number; shelfWidthKm?: number; beachSlopeDeg?: number }

@@ -6,7 +6,7 @@ import { isLand } from './land'
 import { machOnsetScaledM, BLAST } from './blast'
 import { fireballRadiusM, THERMAL } from './thermal'
 import { seismicMagnitude } from './seismic'
-import { cavityDiameterSI, impactWaveSpeedMS, wavelengthGridPoint, OCEAN } from './ocean'
+import { cavityDiameterSI, impactWaveSpeedMS, wavelengthGridPosition, OCEAN } from './ocean'
 import { SIZE_LAW_KM } from './size'
 import { DEG, J_PER_KT, J_PER_MT, WATER_DENSITY_KGM3 } from './units'
 
@@ -47,10 +47,15 @@ export const REC = {
   mag: 13,
   /** Ocean wave (0 when the sea gets no energy): rim amplitude m mixed between the source laws, cavity radius m,
    * rim amplitude of the low and of the high law m, 1/(60 c_g) of the dominant wave (min/m), and the
-   * dominant wavelength's place on WAVELENGTH_GRID (index, fraction). */
-  rimA: 14, rimR: 15, rimLo: 16, rimHi: 17, invC60: 18, lamJ: 19, lamF: 20,
-  size: 21,
+   * dominant wavelength's place on WAVELENGTH_GRID (index plus fraction). */
+  rimA: 14, rimR: 15, rimLo: 16, rimHi: 17, invC60: 18, lamU: 19,
+  size: 20,
 } as const
+
+// Module-level copies for the realisation loop: imported bindings are read through accessors in some loaders.
+const O_RIMA = REC.rimA, O_RIMR = REC.rimR, O_RIMLO = REC.rimLo, O_RIMHI = REC.rimHi, O_INVC60 = REC.invC60, O_LAMU = REC.lamU
+const RIM_FACTOR = OCEAN.rimWaveFactor, CAVITY_DEPTH = OCEAN.cavityDepthRatio, SOURCE_MIN_M = OCEAN.tsunamiSourceMinM
+const DRAG_W = 3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient / 2
 
 /** The realisations: summary columns plus the packed site-loop records. */
 export interface SampleSet {
@@ -160,34 +165,31 @@ export function drawSamples(solution: OrbitSolution, n: number, seed: number, st
     // Model uncertainty of the tsunami source: a log-uniform weight between the low and the high law, drawn
     // for every realisation so that the random stream does not depend on where the point falls.
     const lawW = rng.uniform()
-    let dtc = 0, rimA = 0, rimLo = 0, rimHi = 0, waveC = 0, lamJ = 0, lamF = 0
+    let dtc = 0, rimA = 0, rimLo = 0, rimHi = 0, waveC = 0, lamU = 0
     const vs = scr.surfaceSpeedMS
     if (sea && vs > 0) {
       // Whatever reaches the sea surface (an impact, or the debris of a low burst) opens a cavity that is
       // continuous in its speed; the wave follows the cavity.
       const sinT = Math.sin(theta)
       dtc = cavityDiameterSI(D, rho, vs, sinT)
-      rimLo = Math.min(OCEAN.rimWaveFactor * dtc, h)
-      rimHi = Math.min(OCEAN.cavityDepthRatio * dtc, h)
+      rimLo = Math.min(RIM_FACTOR * dtc, h)
+      rimHi = Math.min(CAVITY_DEPTH * dtc, h)
       rimA = rimLo > 0 ? rimLo * Math.exp(lawW * Math.log(rimHi / rimLo)) : 0
-      if (rimA >= OCEAN.tsunamiSourceMinM) flags |= FLAG_TSUNAMI
+      if (rimA >= SOURCE_MIN_M) flags |= FLAG_TSUNAMI
       waveC = impactWaveSpeedMS(dtc, h)
-      const g = wavelengthGridPoint(2 * dtc)
-      lamJ = g.j
-      lamF = g.f
+      lamU = wavelengthGridPosition(2 * dtc)
       // Transient cavity depth D/2.828 (EIEP) deeper than the sea: the cavity reaches the sea floor.
-      if (dtc * OCEAN.cavityDepthRatio > h) { flags |= FLAG_SEAFLOOR; counts.seafloor++ }
-      const vsf = vs * Math.exp(-3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient * h / (2 * rho * D * sinT))
+      if (dtc * CAVITY_DEPTH > h) { flags |= FLAG_SEAFLOOR; counts.seafloor++ }
+      const vsf = vs * Math.exp(-DRAG_W * h / (rho * D * sinT))
       eGround = 0.5 * scr.massKg * vsf * vsf
     }
     S.cavityM[i] = dtc
-    R[o + REC.rimA] = rimA
-    R[o + REC.rimR] = dtc / 2
-    R[o + REC.rimLo] = rimLo
-    R[o + REC.rimHi] = rimHi
-    R[o + REC.invC60] = waveC > 0 ? 1 / (60 * waveC) : 0
-    R[o + REC.lamJ] = lamJ
-    R[o + REC.lamF] = lamF
+    R[o + O_RIMA] = rimA
+    R[o + O_RIMR] = dtc / 2
+    R[o + O_RIMLO] = rimLo
+    R[o + O_RIMHI] = rimHi
+    R[o + O_INVC60] = waveC > 0 ? 1 / (60 * waveC) : 0
+    R[o + O_LAMU] = lamU
     R[o + REC.mag] = eGround > 0 ? seismicMagnitude(eGround) : NaN
     S.flags[i] = flags
   }

@@ -5,7 +5,7 @@ import { FLAG_TSUNAMI, REC } from './sample'
 import { peakWindMS, BLAST } from './blast'
 import { visibleFraction } from './thermal'
 import { effectiveMagnitude } from './seismic'
-import { OCEAN, breakingLimit, longWaveSpeedMS, shoreProfile, runUpOnProfileM, toeHeightForRunUpM } from './ocean'
+import { OCEAN, breakingLimit, longWaveSpeedMS, shoreProfile, runUpOnProfileM, toeHeightForRunUpM, type ShoreProfile } from './ocean'
 import { orderStats, toPercentiles } from './stats'
 import { DEG, EARTH_RADIUS_M } from './units'
 
@@ -24,6 +24,29 @@ function windThresholdPa(u: number): number {
   let p = WIND_AS_PRESSURE.get(u)
   if (p === undefined) { p = overpressureForWindPa(u); WIND_AS_PRESSURE.set(u, p) }
   return p
+}
+
+// Module-level copies for the realisation loop: imported bindings are read through accessors in some loaders.
+const O_RIMA = REC.rimA, O_RIMR = REC.rimR, O_RIMLO = REC.rimLo, O_RIMHI = REC.rimHi, O_INVC60 = REC.invC60, O_LAMU = REC.lamU
+const REC_SIZE = REC.size, F_TSUNAMI = FLAG_TSUNAMI
+
+/**
+ * A site's shore profile for an open-ocean depth, with the toe heights that reach given run-ups, kept
+ * between assessments (the tables take about 0.1 ms to build; a scenario's sites recur).
+ */
+interface Coast { shore: ShoreProfile; toeFor: (runUpM: number) => number }
+const COASTS = new Map<string, Coast>()
+function coastOf(openDepthM: number, site: Site): Coast {
+  const key = `${openDepthM}|${site.offshoreDepthM}|${site.shelfWidthKm}|${site.beachSlopeDeg}`
+  let c = COASTS.get(key)
+  if (!c) {
+    if (COASTS.size >= 512) COASTS.clear()
+    const shore = shoreProfile({ openDepthM, offshoreDepthM: site.offshoreDepthM ?? 1, shelfWidthKm: site.shelfWidthKm, beachSlopeDeg: site.beachSlopeDeg })
+    const toe = new Map<number, number>()
+    c = { shore, toeFor: (v) => { let h = toe.get(v); if (h === undefined) { h = toeHeightForRunUpM(shore, v); toe.set(v, h) } return h } }
+    COASTS.set(key, c)
+  }
+  return c
 }
 
 /** Scratch columns reused from site to site. */
@@ -65,7 +88,8 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   const coastal = site.offshoreDepthM !== undefined
   const d2 = site.offshoreDepthM ?? 1
   // Per-site constants of the shore profile: shoaling tables against wavelength, run-up against toe height.
-  const shore = coastal ? shoreProfile({ openDepthM: S.seaDepthM, offshoreDepthM: d2, shelfWidthKm: site.shelfWidthKm, beachSlopeDeg: site.beachSlopeDeg }) : undefined
+  const coast = coastal ? coastOf(S.seaDepthM, site) : undefined
+  const shore = coast?.shore
   const KS = shore?.toOffshore ?? new Float64Array(2), KT = shore?.toToe ?? new Float64Array(2)
   const cap = OCEAN.breakingIndex * d2
   // A wave breaks before the shore once its toe height passes Synolakis's non-breaking limit (below 0.78 d_t).
@@ -80,7 +104,7 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   const P = levels('p'), TH = levels('th'), RU = levels('run')
   const pv = Float64Array.from(P, (t) => t.v), tv = Float64Array.from(TH, (t) => t.v)
   // Run-up thresholds as toe heights (run-up is non-decreasing in the toe height), so the loop needs no run-up.
-  const rv = Float64Array.from(RU, (t) => shore ? toeHeightForRunUpM(shore, t.v) : Infinity)
+  const rv = Float64Array.from(RU, (t) => coast ? coast.toeFor(t.v) : Infinity)
   const pHits = new Float64Array(P.length + 1), tHits = new Float64Array(TH.length + 1), rHits = new Float64Array(RU.length + 1)
   const nP = pv.length, nTv = tv.length, nR = rv.length
   const { dist, op, th, mag, amp, toe, ampLo, toeLo, ampHi, toeHi, t1, t2 } = w
@@ -90,9 +114,11 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   // Least and greatest value of each column, so that orderStats can skip a pass.
   let dLo = Infinity, dHi = -Infinity, pLo = Infinity, pHi = -Infinity, thLo = Infinity, thHi = -Infinity
   let mLo = Infinity, mHi = -Infinity
+  // Bounds of the amplitude and toe-height columns: per realisation low law <= mixed <= high law.
+  let aLo = Infinity, aHi = -Infinity, hLo = Infinity, hHi = -Infinity
   let t1Lo = Infinity, t1Hi = -Infinity, t2Lo = Infinity, t2Hi = -Infinity
   const invCLong60 = 1 / (60 * cLong)
-  for (let i = 0, o = 0; i < n; i++, o += REC.size) {
+  for (let i = 0, o = 0; i < n; i++, o += REC_SIZE) {
     let dot = Rc[o]! * sx + Rc[o + 1]! * sy + Rc[o + 2]! * sz
     if (dot > 1) dot = 1
     else if (dot < -1) dot = -1
@@ -148,32 +174,38 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
         if (me > mHi) mHi = me
       }
     }
-    const rimA = Rc[o + REC.rimA]!
+    const rimA = Rc[o + O_RIMA]!
     if (coastal && rimA > 0) {
       // Every realisation that puts energy into the sea makes a wave (continuous in the surface speed).
       // Open-ocean decay 1/r beyond the cavity radius (both source laws), then the site's shoaling factors
       // to the offshore depth and to the beach toe at the dominant wavelength (tabulated, interpolated).
-      const rc = Rc[o + REC.rimR]!
+      const rc = Rc[o + O_RIMR]!
       const dec = r > rc ? rc * invR : 1
-      const j = Rc[o + REC.lamJ]!, f = Rc[o + REC.lamF]!
+      const u = Rc[o + O_LAMU]!
+      const j = u | 0, f = u - j
       const ks = KS[j]! + f * (KS[j + 1]! - KS[j]!), kt = KT[j]! + f * (KT[j + 1]! - KT[j]!)
-      const dMix = rimA * dec, dLo = Rc[o + REC.rimLo]! * dec, dHi = Rc[o + REC.rimHi]! * dec
+      const dMix = rimA * dec, dLo = Rc[o + O_RIMLO]! * dec, dHi = Rc[o + O_RIMHI]! * dec
       // Offshore amplitudes never exceed the breaking height there (McCowan 1894).
       const a = dMix * ks, aL = dLo * ks, aH = dHi * ks
       amp[m] = a < cap ? a : cap
-      ampLo[m] = aL < cap ? aL : cap
-      ampHi[m] = aH < cap ? aH : cap
-      const ht = dMix * kt
+      const aLc = aL < cap ? aL : cap, aHc = aH < cap ? aH : cap
+      ampLo[m] = aLc
+      ampHi[m] = aHc
+      if (aLc < aLo) aLo = aLc
+      if (aHc > aHi) aHi = aHc
+      const ht = dMix * kt, hL = dLo * kt, hH = dHi * kt
       toe[m] = ht
-      toeLo[m] = dLo * kt
-      toeHi[m] = dHi * kt
+      toeLo[m] = hL
+      toeHi[m] = hH
+      if (hL < hLo) hLo = hL
+      if (hH > hHi) hHi = hH
       m++
       if (ht >= breakToeM) broken++
       c = 0
       while (c < nR && ht >= rv[c]!) c++
       rHits[c]!++
-      if (F[i]! & FLAG_TSUNAMI) {
-        const u1 = r * invCLong60, u2 = r * Rc[o + REC.invC60]!
+      if (F[i]! & F_TSUNAMI) {
+        const u1 = r * invCLong60, u2 = r * Rc[o + O_INVC60]!
         t1[mt] = u1
         t2[mt] = u2
         mt++
@@ -196,27 +228,30 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   const pct = (x: Float64Array, count: number, zeros: number, lo: number, hi: number) => { orderStats(x, count, o, zeros, lo, hi); return toPercentiles(o) }
   const zero = { p5: 0, p50: 0, p95: 0 }
   // Run-up percentiles are those of the toe height mapped through the site's non-decreasing run-up law.
-  const runUpPct = (x: Float64Array) => { orderStats(x, m, o, n - m); return toPercentiles(o, runUpOf) }
+  const runUpPct = (x: Float64Array) => { orderStats(x, m, o, n - m, hLo, hHi); return toPercentiles(o, runUpOf) }
   orderStats(op, n, o, 0, pLo, pHi)
   const overpressureKPa = toPercentiles(o, (v) => v / 1000)
   const windMS = toPercentiles(o, peakWindMS)
+  const distanceKm = pct(dist, n, 0, dLo, dHi)
+  // When every realisation makes a tsunami, the first arrival is a monotone map of the distance: reuse its order statistics.
+  const firstArrival = mt === n ? toPercentiles(o, (km) => km * 1000 * invCLong60) : mt > 0 ? pct(t1, mt, 0, t1Lo, t1Hi) : zero
   const assessment: SiteAssessment = {
     siteId: site.id,
     name: site.name,
     population: site.population,
     coastal,
-    distanceKm: pct(dist, n, 0, dLo, dHi),
+    distanceKm,
     overpressureKPa,
     windMS,
     thermalMJM2: pct(th, nTh, n - nTh, thLo, thHi),
     seismicMagnitude: pct(mag, nMag, n - nMag, mLo, mHi),
-    tsunamiAmplitudeM: pct(amp, m, n - m, NaN, NaN),
-    tsunamiArrivalMin: mt > 0 ? pct(t1, mt, 0, t1Lo, t1Hi) : zero,
+    tsunamiAmplitudeM: pct(amp, m, n - m, aLo, aHi),
+    tsunamiArrivalMin: firstArrival,
     tsunamiMainArrivalMin: mt > 0 ? pct(t2, mt, 0, t2Lo, t2Hi) : zero,
     runUpM: runUpPct(toe),
     tsunamiBand: {
-      low: { amplitudeM: pct(ampLo, m, n - m, NaN, NaN), runUpM: runUpPct(toeLo) },
-      high: { amplitudeM: pct(ampHi, m, n - m, NaN, NaN), runUpM: runUpPct(toeHi) },
+      low: { amplitudeM: pct(ampLo, m, n - m, aLo, aHi), runUpM: runUpPct(toeLo) },
+      high: { amplitudeM: pct(ampHi, m, n - m, aLo, aHi), runUpM: runUpPct(toeHi) },
     },
     exceedance,
   }

@@ -106,7 +106,8 @@ function selectRanks(x: Float64Array, n: number, ranks: readonly number[], vals:
  * between order statistics ("type 7"; Hyndman & Fan 1996, Am. Stat. 50, 361–365), by exact radix
  * selection (see selectRanks). x is unchanged. `zeros` adds that many implicit zeros to the data
  * (then every value of x must be >= 0): callers store only the non-zero values of sparse columns.
- * `lo` and `hi`, when given, must be the least and greatest of x[0..n-1]; they save a pass.
+ * `lo` and `hi`, when given, must bound x[0..n-1] (lo <= every value <= hi; tightest as its least and
+ * greatest); they save a pass.
  * Writes [value at rank k, value at rank k+1, fraction] per percentile into out (9 numbers); NaN if n = 0.
  */
 export function orderStats(x: Float64Array, n: number, out: Float64Array, zeros = 0, lo = NaN, hi = NaN): void {
