@@ -21,10 +21,11 @@ export const OCEAN = {
   /** Beach slope of a coastal site when the scenario gives none, degrees (common practice, no source). */
   defaultBeachSlopeDeg: 1,
   /**
-   * Shelf width when the scenario gives none, km: narrower than the world mean of roughly 70–80 km
-   * (from memory), so that the default errs toward the steeper profile and the higher run-up of broken waves.
+   * Shelf width when the scenario gives none, km: the distance over which the sea floor rises from the offshore
+   * depth to the beach toe; 10 km makes an inner-shelf gradient of about 1:250 for a 50 m offshore depth
+   * (typical inner shelves 1:100–1:1000; common practice, no source).
    */
-  defaultShelfWidthKm: 20,
+  defaultShelfWidthKm: 10,
   /** Depth of the beach toe, where the shelf meets the beach slope, m (common practice, no source; at most the offshore depth). */
   toeDepthM: 10,
   /** Gradient of the continental slope seaward of the shelf edge, degrees (typical 2–5°, from memory). */
@@ -245,18 +246,16 @@ export interface ShoreProfileInput { openDepthM: number; offshoreDepthM: number;
  * A coastal site's profile, seen from the open ocean: open depth h0 (the impact's), a continental slope
  * (OCEAN.continentalSlopeDeg) up to the shelf edge at the offshore depth d_s, a shelf rising linearly over
  * its width to the beach toe at d_t = min(OCEAN.toeDepthM, d_s), and a plane beach of slope beta to the
- * shore. Holds the per-site tables the Monte Carlo reads: shoaling factors to d_s and to d_t on
- * WAVELENGTH_GRID, and the run-up of waves that break before the toe against their breaking depth.
+ * shore. Holds the per-site constants the Monte Carlo reads: shoaling factors to d_s and to d_t on
+ * WAVELENGTH_GRID, and the run-up per metre of breaking depth on each segment.
  */
 export interface ShoreProfile {
-  openDepthM: number; offshoreDepthM: number; toeDepthM: number; shelfWidthM: number; cotBeach: number
+  openDepthM: number; offshoreDepthM: number; toeDepthM: number; shelfWidthM: number; cotBeach: number; cotShelf: number; cotSlope: number
   /** Energy-flux shoaling factor from the open depth to d_s, and to d_t, per grid wavelength. */
   toOffshore: Float64Array; toToe: Float64Array
-  /** Breaking depths (ascending, from d_t) and the non-decreasing run-up of a wave breaking there, m. */
-  breakDepthM: Float64Array; breakRunUpM: Float64Array
+  /** Run-up per metre of breaking depth, R/d of a breaking wave (H = 0.78 d), on the beach, shelf and continental slope. */
+  rateBeach: number; rateShelf: number; rateSlope: number
 }
-
-const BREAK_POINTS = 129
 
 /**
  * Builds a site's shore profile and its tables (see ShoreProfile). Shoaling: `shoalingFactor` (energy flux,
@@ -269,6 +268,8 @@ export function shoreProfile(i: ShoreProfileInput): ShoreProfile {
   const W = 1000 * (i.shelfWidthKm ?? OCEAN.defaultShelfWidthKm)
   const cotBeach = 1 / Math.tan((i.beachSlopeDeg ?? OCEAN.defaultBeachSlopeDeg) * DEG)
   const cotSlope = 1 / Math.tan(OCEAN.continentalSlopeDeg * DEG)
+  // A shelf flatter than the beach, and no steeper than the continental slope.
+  const cotShelf = ds > dt ? Math.max(cotSlope, W / (ds - dt)) : cotBeach
   const n = WAVELENGTH_GRID.n
   const toOffshore = new Float64Array(n), toToe = new Float64Array(n)
   for (let j = 0; j < n; j++) {
@@ -276,33 +277,23 @@ export function shoreProfile(i: ShoreProfileInput): ShoreProfile {
     toOffshore[j] = shoalingFactor(lambda, h0, ds)
     toToe[j] = shoalingFactor(lambda, h0, dt)
   }
-  // Horizontal distance from the shore to depth d along the profile, m.
-  const xt = dt * cotBeach
-  const reach = (d: number) => d <= dt ? d * cotBeach
-    : d <= ds ? xt + (d - dt) / (ds - dt) * W
-      : xt + W + (d - ds) * cotSlope
-  // A wave breaking at depth d runs up like a wave of height 0.78 d at a toe of depth d on the mean slope
-  // from there to the shore; the running maximum keeps run-up non-decreasing in the breaking depth.
-  const top = Math.max(h0, dt * 1.0001)
-  const breakDepthM = new Float64Array(BREAK_POINTS), breakRunUpM = new Float64Array(BREAK_POINTS)
-  let best = 0
-  for (let k = 0; k < BREAK_POINTS; k++) {
-    const d = k === 0 ? dt : dt * Math.pow(top / dt, k / (BREAK_POINTS - 1))
-    const R = d * runUpRatio(OCEAN.breakingIndex, reach(d) / d)
-    if (R > best) best = R
-    breakDepthM[k] = d
-    breakRunUpM[k] = best
+  const rate = (cot: number) => runUpRatio(OCEAN.breakingIndex, cot)
+  return {
+    openDepthM: h0, offshoreDepthM: ds, toeDepthM: dt, shelfWidthM: W, cotBeach, cotShelf, cotSlope, toOffshore, toToe,
+    rateBeach: rate(cotBeach), rateShelf: rate(cotShelf), rateSlope: rate(cotSlope),
   }
-  return { openDepthM: h0, offshoreDepthM: ds, toeDepthM: dt, shelfWidthM: W, cotBeach, toOffshore, toToe, breakDepthM, breakRunUpM }
 }
 
 /**
  * Run-up at a site from the height the wave would have at the beach toe if it did not break (`toeHeightM`,
  * the open-ocean amplitude times the profile's shoaling factor to the toe). Below the breaking height
  * 0.78 d_t (McCowan 1894) it runs up the beach by `runUpRatio` (Synolakis 1987, continuous form). Beyond it
- * the wave breaks at the depth d_b where Green's law `H (d_t/d)^(1/4)` meets 0.78 d, and runs up like a
- * wave of height 0.78 d_b at a toe of depth d_b on the mean slope from there to the shore. Continuous and
- * non-decreasing in toeHeightM; for waves that do not break, non-increasing in beach steepness.
+ * the wave breaks at the depth d_b where Green's law `H (d_t/d)^(1/4)` meets 0.78 d, and runs up as a wave
+ * of height 0.78 d_b at a toe of depth d_b would on a plane beach — layer by layer: each metre of depth
+ * between the shore and d_b adds the R/d of that plane-beach law at the local slope of its segment (beach,
+ * shelf, continental slope). On a plane beach this is exactly Synolakis at the breaking point; a wide, gentle
+ * shelf adds less run-up per metre of breaking depth. Continuous, strictly increasing in toeHeightM, no
+ * cap; for waves that do not break, non-increasing in beach steepness.
  * Sources: Synolakis 1987 (JFM 185); McCowan 1894 (Phil. Mag. 38); Green 1838 (common practice). *Indicative*.
  * @param p the site's ShoreProfile; toeHeightM unbroken wave height at the toe, m
  * @returns run-up height above sea level, m
@@ -313,16 +304,9 @@ export function runUpOnProfileM(p: ShoreProfile, toeHeightM: number): number {
   const x = toeHeightM / dt
   if (x < OCEAN.breakingIndex) return dt * runUpRatio(x, p.cotBeach)
   const db = dt * Math.pow(x / OCEAN.breakingIndex, 0.8)
-  const D = p.breakDepthM, R = p.breakRunUpM
-  const last = D.length - 1
-  if (db >= D[last]!) return R[last]!
-  // The grid is geometric in depth: locate the interval directly.
-  const u = Math.log(db / dt) / Math.log(D[last]! / dt) * last
-  let k = Math.min(last - 1, Math.max(0, Math.floor(u)))
-  while (k > 0 && D[k]! > db) k--
-  while (k < last - 1 && D[k + 1]! < db) k++
-  const f = (db - D[k]!) / (D[k + 1]! - D[k]!)
-  return R[k]! + Math.min(1, Math.max(0, f)) * (R[k + 1]! - R[k]!)
+  const ds = p.offshoreDepthM
+  const onShelf = (db < ds ? db : ds) - dt
+  return dt * p.rateBeach + (onShelf > 0 ? onShelf * p.rateShelf : 0) + (db > ds ? (db - ds) * p.rateSlope : 0)
 }
 
 /**

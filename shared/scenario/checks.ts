@@ -1,12 +1,14 @@
 /**
  * Cross-reference checks of a scenario whose shapes already passed: unknown or duplicate keys,
- * times outside the scenario, deadlines before their inject, solutions out of order, and the
- * hazard fields of inject bodies.
+ * times outside the scenario, deadlines before their inject, solutions out of order, a water depth of
+ * 0 m under a nominal impact point at sea, shore-profile fields on an inland site, and the hazard
+ * fields of inject bodies.
  */
 import type { Scenario } from './schema'
 import { BUILT_IN_INJECT_KINDS, DEFAULT_AFTERMATH_DAYS } from './constants'
 import { findHazardFields, validateHazardFields } from './fields'
 import { scenarioTime } from './time'
+import { isLand } from '../hazard/land'
 
 export type IssuePath = Array<string | number>
 
@@ -80,6 +82,18 @@ export function checkScenario(s: Scenario): CheckIssue[] {
     }
     if (scenarioTime(entry.solution.impactTime) <= scenarioTime(entry.solution.epoch)) {
       add([...path, 'solution', 'impactTime'], `impact time ${entry.solution.impactTime} must be after the epoch ${entry.solution.epoch}`)
+    }
+    const [lon, lat] = entry.solution.corridor.nominal
+    if (!(entry.solution.waterDepthM > 0) && !isLand(lon, lat)) {
+      add([...path, 'solution', 'waterDepthM'], `the nominal impact point (${lon}, ${lat}) is at sea: give the water depth there (0 m means land)`)
+    }
+  })
+
+  // Shore-profile fields only act on coastal sites, which an offshore depth marks.
+  s.sites.forEach((site, i) => {
+    if (site.offshoreDepthM !== undefined) return
+    for (const field of ['shelfWidthKm', 'beachSlopeDeg'] as const) {
+      if (site[field] !== undefined) add(['sites', i, field], `${field} has no effect on an inland site: give offshoreDepthM to make "${site.id}" coastal`)
     }
   })
 
