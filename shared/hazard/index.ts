@@ -1,7 +1,7 @@
 /**
  * Brinkwater hazard engine: the public face. A pure TypeScript library (no Nuxt, Node or browser API)
  * that turns an orbit solution into screening estimates of asteroid impact effects for training.
- * Physics and sources: /work/shared/design/hazard-model.md and the doc comment of each function.
+ * Physics and sources: shared/hazard/README.md and the doc comment of each function.
  */
 export * from './schema'
 export * from './types'
@@ -13,8 +13,10 @@ export { thermalExposureJM2, fireballRadiusM, visibleFraction, burnThresholdJM2,
 export { seismicMagnitude, effectiveMagnitude } from './seismic'
 export {
   waterCavityDiameterM, seafloorSpeedKmS, rimWaveAmplitudeM, tsunamiAmplitudeAtM, shoaledAmplitudeM, runUpM,
-  breakingLimit, longWaveSpeedMS, impactWaveSpeedMS, OCEAN,
+  breakingLimit, longWaveSpeedMS, impactWaveSpeedMS, OCEAN, TSUNAMI_SOURCE_LAWS, shoalingFactor, runUpRatio,
+  shoreProfile, runUpOnProfileM, tsunamiAtSite,
 } from './ocean'
+export type { ShoreProfile, ShoreProfileInput, SiteWave } from './ocean'
 export { palermoScale, torinoScale } from './scales'
 export { HazardRng, sampleAlbedoWright2016, sampleShoemakerAngleDeg, CLASS_ALBEDO, CLASS_DENSITY, WRIGHT_2016 } from './sampling'
 export { sampleSolutionCorridorPoint } from './corridor'

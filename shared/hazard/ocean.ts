@@ -326,3 +326,37 @@ export function toeHeightForRunUpM(p: ShoreProfile, runUpM: number): number {
   }
   return hi
 }
+
+/** What `tsunamiAtSite` returns: lengths m, speed m/s. */
+export interface SiteWave {
+  cavityDiameterM: number; sourceAmplitudeM: number; offshoreAmplitudeM: number; toeHeightM: number; runUpM: number; mainWaveSpeedMS: number
+}
+
+/**
+ * The Monte Carlo's tsunami chain for one realisation and one site, as a plain function (the engine runs the
+ * same steps inlined in sample.ts and sites.ts; a test checks that they agree): cavity from the speed at the
+ * sea surface, source amplitude `low^(1-w) high^w` between the two source laws, 1/r decay beyond the cavity
+ * radius, shoaling to the offshore depth (capped at breaking) and to the toe on the site's tables, run-up.
+ * Sources: as the functions it calls. *Indicative*.
+ * @param i.diameterM m; i.densityKgM3 kg/m³; i.surfaceSpeedMS speed reaching the sea, m/s; i.angleDeg degrees;
+ *   i.distanceM from the impact, m; i.lawWeight w in [0, 1] (0: low law, 1: high law); i.profile the site's ShoreProfile
+ */
+export function tsunamiAtSite(i: { diameterM: number; densityKgM3: number; surfaceSpeedMS: number; angleDeg: number; distanceM: number; lawWeight: number; profile: ShoreProfile }): SiteWave {
+  const p = i.profile
+  const h = p.openDepthM
+  const dtc = cavityDiameterSI(i.diameterM, i.densityKgM3, i.surfaceSpeedMS, Math.sin(i.angleDeg * DEG))
+  if (!(dtc > 0)) return { cavityDiameterM: 0, sourceAmplitudeM: 0, offshoreAmplitudeM: 0, toeHeightM: 0, runUpM: 0, mainWaveSpeedMS: 0 }
+  const lo = Math.min(OCEAN.rimWaveFactor * dtc, h), hi = Math.min(OCEAN.cavityDepthRatio * dtc, h)
+  const a0 = lo * Math.exp(i.lawWeight * Math.log(hi / lo))
+  const rc = dtc / 2
+  const a = i.distanceM > rc ? a0 * rc / i.distanceM : a0
+  const u = wavelengthGridPosition(2 * dtc)
+  const j = u | 0, f = u - j
+  const ks = p.toOffshore[j]! + f * (p.toOffshore[j + 1]! - p.toOffshore[j]!)
+  const kt = p.toToe[j]! + f * (p.toToe[j + 1]! - p.toToe[j]!)
+  const toe = a * kt
+  return {
+    cavityDiameterM: dtc, sourceAmplitudeM: a0, offshoreAmplitudeM: Math.min(a * ks, OCEAN.breakingIndex * p.offshoreDepthM),
+    toeHeightM: toe, runUpM: runUpOnProfileM(p, toe), mainWaveSpeedMS: impactWaveSpeedMS(dtc, h),
+  }
+}
