@@ -20,7 +20,7 @@ const YEAR_MS = 365.25 * 86_400_000
 export interface AssessOptionsInput { samples?: number; seed?: number; strengthModel?: 'density' | 'log-uniform' }
 
 /**
- * Monte Carlo hazard assessment of an orbit solution for a list of sites (hazard-model.md §6).
+ * Monte Carlo hazard assessment of an orbit solution for a list of sites (see shared/hazard/README.md).
  * Draws `samples` realisations with a seeded xoroshiro128+ generator (same solution, sites and seed →
  * identical figures; the whole safe-integer seed is used), runs size (Bowell et al. 1989), entry (Collins,
  * Melosh & Marcus 2005, MAPS 40(6) 817–840), airblast, thermal and seismic effects (Collins 2005), ocean

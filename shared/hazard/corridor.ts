@@ -84,7 +84,7 @@ export function unitToLonLat(x: number, y: number, z: number): LonLat {
  * One impact point of the corridor: along-track offset `zAlong` standard deviations from the nominal
  * (Normal, sigma = alongTrackSigmaKm) and cross-track fraction `uAcross` in [0, 1) of the full width
  * (uniform within ± halfWidthKm: the corridor width bounds the track, it is not a sigma).
- * Source: hazard-model.md §6 (sampling choice of this engine).
+ * Source: sampling choice of this engine (shared/hazard/README.md; common practice, no source).
  * @param solution orbit solution; zAlong standard normal deviate; uAcross uniform in [0, 1)
  * @returns [lon, lat] in degrees
  */

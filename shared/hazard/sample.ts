@@ -82,7 +82,7 @@ export function allocSamples(capacity: number): SampleSet {
 }
 
 /**
- * Draws n realisations from an orbit solution (hazard-model.md §6) and runs sections 1–4 for each:
+ * Draws n realisations from an orbit solution and runs, for each, the steps of shared/hazard/README.md:
  * size, entry, blast scaling, fireball, seismic source and ocean cavity. Fills S (capacity >= n; every
  * field of every realisation is written, so S may be reused).
  */

@@ -17,7 +17,7 @@ function below(x: number, y: number, x0: number): boolean {
 
 /**
  * Torino Impact Hazard Scale, an integer 0–10 from impact probability and kinetic energy, with the
- * zone boundaries of hazard-model.md §5. Source: Binzel 2000, Planetary and Space Science 48, 297–303, fig. 1.
+ * zone boundaries of the Torino scale figure. Source: Binzel 2000, Planetary and Space Science 48, 297–303, fig. 1.
  * @param i.probability impact probability, 0..1; i.energyMt kinetic energy, Mt TNT
  * @returns Torino scale value, integer 0..10
  */

@@ -60,13 +60,16 @@ export const siteSchema = z.object({
   lon: z.number().min(-180).max(180),
   lat: z.number().min(-90).max(90),
   population: z.number().int().min(0).max(50_000_000),
-  /** Water depth offshore of the site where the wave is measured, metres. */
+  /**
+   * Water depth offshore of the site where the wave is measured, metres: the seaward end of the site's
+   * shore profile. Given: the site is coastal and gets tsunami figures; absent: inland.
+   */
   offshoreDepthM: z.number().min(1).max(11000).optional(),
-  /** Beach slope, degrees from the horizontal. */
+  /** Slope of the beach from its toe (10 m deep, or the offshore depth if shallower) to the shore, degrees; default 1. */
   beachSlopeDeg: z.number().gt(0).max(45).optional(),
   /**
-   * Width of the continental shelf in front of the site, km: the horizontal distance over which the
-   * sea floor rises from `offshoreDepthM` to the toe of the beach. Absent: a default shelf.
+   * Width of the shelf in front of the site, km: the horizontal distance over which the sea floor rises
+   * from `offshoreDepthM` to the toe of the beach. Absent: 10 km (see shared/hazard/README.md).
    */
   shelfWidthKm: z.number().gt(0).max(500).optional(),
 })

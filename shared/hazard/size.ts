@@ -39,7 +39,7 @@ export function kineticEnergyMt(i: { diameterM: number; densityKgM3: number; spe
 
 /**
  * Entry speed from the hyperbolic excess speed, `v = sqrt(vinf^2 + 11.19^2)` (escape speed 11.19 km/s).
- * Source: hazard-model.md §1 (energy conservation; common practice, no source).
+ * Source: energy conservation (common practice, no source).
  * @param vInfKmS hyperbolic excess speed, km/s
  * @returns entry speed, km/s
  */

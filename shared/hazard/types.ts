@@ -3,7 +3,7 @@
 /** A distribution summarised by its 5th, 50th and 95th percentiles. */
 export interface Percentiles { p5: number; p50: number; p95: number }
 
-/** Damage thresholds of the hazard model (hazard-model.md §3 and §4). */
+/** Damage thresholds of the hazard model (Collins et al. 2005; Glasstone & Dolan 1977; see shared/hazard/README.md). */
 export const THRESHOLDS = [
   { key: 'windows', kind: 'overpressure', value: 6900, label: 'Windows shatter' },
   { key: 'houseDamage', kind: 'overpressure', value: 22900, label: 'Wood-frame houses badly damaged' },
@@ -47,15 +47,19 @@ export interface SiteAssessment {
   windMS: Percentiles
   thermalMJM2: Percentiles
   seismicMagnitude: Percentiles
-  /** Wave amplitude offshore of the site, metres (indicative). */
+  /**
+   * Wave amplitude at the site's offshore depth, metres (indicative), capped at the breaking height there;
+   * the source laws mixed as model uncertainty (see tsunamiBand).
+   */
   tsunamiAmplitudeM: Percentiles
   /**
    * Earliest long-wave arrival after impact, minutes (largest waves come later), over the realisations
    * that make a tsunami (see Assessment.tsunamiProbability); all 0 when none does.
    */
   tsunamiArrivalMin: Percentiles
-  /** Arrival of the dominant impact wave (linear dispersion, wavelength 2 D_tcw), minutes; same conditioning. */
+  /** Arrival of the dominant impact wave (linear group speed of wavelength 2 D_tcw), minutes; same conditioning. */
   tsunamiMainArrivalMin: Percentiles
+  /** Run-up above sea level on the site's shore profile, metres (indicative); the source laws mixed. */
   runUpM: Percentiles
   /**
    * The tsunami under each published source law separately (the band the literature spans):
@@ -103,7 +107,10 @@ export interface Assessment {
   burstAltitudeKm: Percentiles | null
   /** Share of impact realisations whose impact point is at sea (Natural Earth 1:50m land), airburst or not. */
   oceanImpactProbability: number
-  /** Share of realisations that reach the sea surface (ocean impact, not an airburst) and so make a tsunami. */
+  /**
+   * Share of realisations that make a tsunami: the body or its debris reaches the sea and the wave at the cavity
+   * rim (source laws mixed) is at least 1 m (OCEAN.tsunamiSourceMinM). Smaller waves still enter the site figures.
+   */
   tsunamiProbability: number
   /** Energy delivered to the surface (water or ground), Mt. */
   surfaceEnergyMt: Percentiles
@@ -111,7 +118,7 @@ export interface Assessment {
   airEnergyMt?: Percentiles
   /** The tsunami source laws whose spread the tsunami figures carry (see SiteAssessment.tsunamiBand). */
   tsunamiSourceLaws?: TsunamiSourceLaw[]
-  /** Over the ocean, non-airburst samples only; null when none. */
+  /** Over the realisations that make a tsunami only; null when none. */
   waterCavityDiameterM: Percentiles | null
   sites: SiteAssessment[]
   /** Expected population exposed to each threshold, CONDITIONAL ON IMPACT (sum over sites of population × exceedance). */

@@ -11,7 +11,7 @@ function allPercentiles(a: Assessment): Percentiles[] {
   return top.concat(a.sites.flatMap((s) => [s.distanceKm, s.overpressureKPa, s.windMS, s.thermalMJM2, s.seismicMagnitude, s.tsunamiAmplitudeM, s.tsunamiArrivalMin, s.tsunamiMainArrivalMin, s.runUpM]))
 }
 
-describe('assessSolution (Monte Carlo, hazard-model.md §6)', () => {
+describe('assessSolution (Monte Carlo)', () => {
   const solution = demoSolution()
   const sites = demoSites()
   const a = assessSolution(solution, sites, { samples: 5000, seed: 42 })

@@ -21,7 +21,7 @@ describe('risk scales', () => {
     for (const E of [500, 900, 1480]) expect(torinoScale({ probability: 0.027, energyMt: E })).toBe(4)
   })
 
-  it('follows the zones of hazard-model.md §5 (Binzel 2000 figure, as transcribed)', () => {
+  it('follows the zones of the Binzel 2000 figure', () => {
     expect(torinoScale({ probability: 0.5, energyMt: 0.5 })).toBe(0)       // below 1 Mt
     expect(torinoScale({ probability: 1e-8, energyMt: 10 })).toBe(0)       // below the (-1, -2) line
     expect(torinoScale({ probability: 1e-4, energyMt: 1000 })).toBe(1)

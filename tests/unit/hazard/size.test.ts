@@ -21,7 +21,7 @@ describe('size and energy', () => {
     expect(kineticEnergyMt({ diameterM: 50, densityKgM3: 3000, speedKmS: 20 })).toBeCloseTo(9.386, 2)
   })
 
-  it('adds the escape speed 11.19 km/s in quadrature to v_inf (hazard-model.md §1; common practice, no source)', () => {
+  it('adds the escape speed 11.19 km/s in quadrature to v_inf (common practice, no source)', () => {
     expect(entrySpeedFromVInfKmS(0)).toBeCloseTo(11.19, 10)
     expect(entrySpeedFromVInfKmS(10)).toBeCloseTo(Math.hypot(10, 11.19), 10)
   })
