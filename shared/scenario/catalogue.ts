@@ -69,7 +69,7 @@ const SCALARS: Record<NumberKey<Assessment>, Meta> = {
   impactProbability: { label: 'Impact probability', dimension: 'probability', unit: '%' },
   airburstProbability: { label: 'Probability of an airburst (given impact)', dimension: 'probability', unit: '%' },
   oceanImpactProbability: { label: 'Probability that it strikes the sea (given impact)', dimension: 'probability', unit: '%' },
-  tsunamiProbability: { label: 'Probability that it reaches the sea surface and makes a tsunami (given impact)', dimension: 'probability', unit: '%' },
+  tsunamiProbability: { label: 'Probability of a tsunami, a wave of 1 m or more at its source (given impact)', dimension: 'probability', unit: '%' },
   torino: { label: 'Torino scale', dimension: 'torino', unit: '' },
   palermo: { label: 'Palermo scale', dimension: 'palermo', unit: '' },
 }
@@ -84,6 +84,15 @@ const SITE_DISTRIBUTIONS: Record<PercentileKey<SiteAssessment>, Meta> = {
   tsunamiArrivalMin: { label: 'First tsunami arrival after impact (larger waves follow)', dimension: 'time', unit: 'min' },
   tsunamiMainArrivalMin: { label: 'Arrival of the main impact wave after impact', dimension: 'time', unit: 'min' },
   runUpM: { label: 'Tsunami run-up (indicative)', dimension: 'length', unit: 'm' },
+}
+
+/** The tsunami under each published source law alone (the band the literature spans; hazard engine 2.0). */
+const NO_BAND = 'n/a (model version without the tsunami band)'
+const SITE_BAND: Record<string, Meta> = {
+  'tsunamiBand.low.amplitudeM': { label: 'Tsunami amplitude offshore, low source law (rim wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
+  'tsunamiBand.low.runUpM': { label: 'Tsunami run-up, low source law (rim wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
+  'tsunamiBand.high.amplitudeM': { label: 'Tsunami amplitude offshore, high source law (cavity-depth wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
+  'tsunamiBand.high.runUpM': { label: 'Tsunami run-up, high source law (cavity-depth wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
 }
 
 const SITE_SCALARS: Record<NumberKey<SiteAssessment> | 'name', Meta> = {
@@ -129,6 +138,7 @@ export const HAZARD_FIELDS: readonly HazardFieldSpec[] = Object.freeze([
     { label: `Expected people exposed, given impact: ${t.label.toLowerCase()}`, dimension: 'people', unit: 'people' })),
   ...scalars('site.<site>.', 'site', SITE_SCALARS),
   ...distributions('site.<site>.', 'site', SITE_DISTRIBUTIONS),
+  ...distributions('site.<site>.', 'site', SITE_BAND),
   ...THRESHOLDS.map(t => spec(`site.<site>.exceedance.${t.key}`, 'site', 'probability',
     { label: `Probability at the site, given impact: ${t.label.toLowerCase()}`, dimension: 'probability', unit: '%' })),
 ])

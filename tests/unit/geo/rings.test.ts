@@ -20,7 +20,7 @@ describe('geodesic rings', () => {
     })
   }
 
-  // Thresholds from hazard-model.md §3: 1 psi (6.9 kPa, windows shatter) and 4 psi (severe damage).
+  // Thresholds of the hazard model (THRESHOLDS): 1 psi (6.9 kPa, windows shatter) and 4 psi (severe damage).
   const cases = [
     { name: '1 psi (6.9 kPa), 130 Mt surface burst', energyMt: 130, altM: 0, pa: 6900 },
     { name: '4 psi, 130 Mt surface burst', energyMt: 130, altM: 0, pa: 4 * KPA_PER_PSI * 1000 },
