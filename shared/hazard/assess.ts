@@ -82,8 +82,8 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
 }
 
 /**
- * Working columns (about 290 bytes per realisation) are kept between calls for up to POOL_MAX
- * realisations — 6 MB at the default 20 000, 58 MB at 200 000 — to spare the allocator and the garbage
+ * Working columns (about 320 bytes per realisation) are kept between calls for up to POOL_MAX
+ * realisations — 6.4 MB at the default 20 000, 64 MB at 200 000 — to spare the allocator and the garbage
  * collector; larger runs allocate afresh. Safe: the engine is synchronous and results hold no columns.
  */
 const POOL_MAX = 200_000
