@@ -79,6 +79,10 @@ describe('run-up (Synolakis 1987, JFM 185, continuous form): no drop at the brea
     const small = runUpOnProfileM(p, 5), large = runUpOnProfileM(p, 15)
     expect(small).toBeGreaterThan(1.9)
     expect(large / small).toBeGreaterThan(2)
+    // The audit's case: a 1 km and a 300 m stony impact 100 km out, 2 m offshore depth (both gave 1.9 m).
+    const at = (diameterM: number) => tsunamiAtSite({ diameterM, densityKgM3: 3000, surfaceSpeedMS: 20_000, angleDeg: 45,
+      distanceM: 100e3, lawWeight: 0, profile: p }).runUpM
+    expect(at(1000) / at(300)).toBeGreaterThan(1.5)
   })
 
   it('on a uniform slope, runs a broken wave up as Synolakis at its breaking point (H = 0.78 d_b, McCowan 1894)', () => {
