@@ -33,7 +33,8 @@ export interface AssessOptionsInput { samples?: number; seed?: number; strengthM
  * share of the impact realisations. Multiply by `impactProbability` for the absolute figure.
  * Units are in the field names (m, kg, Mt TNT, km, kPa, m/s, MJ/m², minutes).
  * @param solution validated orbit solution; sites places to evaluate; options samples (default 20 000),
- *   seed (default 1; any safe integer, |seed| <= 2^53 - 1), strengthModel (`density`, Collins 2005 eq. 9, default; or `log-uniform` 0.1–10 MPa,
+ *   seed (default 1; any safe integer, |seed| <= 2^53 - 1),
+ *   strengthModel (`density`, Collins 2005 eq. 9, default; or `log-uniform` 0.1–10 MPa,
  *   Mathias et al. 2017, Icarus 289)
  */
 export function assessSolution(solution: OrbitSolution, sites: Site[], options: AssessOptionsInput = {}): Assessment {
@@ -128,12 +129,14 @@ function warnings(solution: OrbitSolution, S: SampleSet, results: SiteResult[], 
       + 'laws separately as a band. No bathymetry beyond each site\'s shelf profile; impact waves are dispersive and the '
       + 'largest arrive after the first.' })
   if (S.counts.sea > 0 && !(solution.waterDepthM > 0)) w.push({ code: 'depth-assumed', fraction: S.counts.sea / n,
-    message: `The solution gives a water depth of 0 m (nominal point on land) but ${Math.round(100 * S.counts.sea / n)} % of the `
-      + `impact points fall in the sea; they use ${ASSUMED_DEPTH_M} m, a typical shelf depth. Give the depth for ocean figures that matter.` })
+    message: `The solution gives a water depth of 0 m (nominal point on land) but ${Math.round(100 * S.counts.sea / n)} % `
+      + `of the impact points fall in the sea; they use ${ASSUMED_DEPTH_M} m, a typical shelf depth. `
+      + 'Give the depth for ocean figures that matter.' })
   if (tsu > 0 && solution.waterDepthM > 8000) w.push({ code: 'depth-out-of-range', fraction: tsu / n,
     message: 'Water depth at the impact exceeds 8000 m, beyond the tested range of the ocean model.' })
   if (S.counts.seafloor > 0) w.push({ code: 'cavity-reaches-seafloor', fraction: S.counts.seafloor / n,
-    message: 'The transient cavity is deeper than the sea: the wave at the source is capped at the water depth and a sea-floor crater forms; the source laws are least reliable here.' })
+    message: 'The transient cavity is deeper than the sea: the wave at the source is capped at the water depth and a '
+      + 'sea-floor crater forms; the source laws are least reliable here.' })
   if (air > 0 && S.counts.sea > 0) w.push({ code: 'airburst-over-sea', fraction: air / n,
     message: 'An airburst over the sea puts much less energy into the water than a surface impact of the same body '
       + '(Berger & Goodman 2018); only what reaches the surface makes a wave, and a tsunami is counted when the wave at its '
@@ -142,8 +145,9 @@ function warnings(solution: OrbitSolution, S: SampleSet, results: SiteResult[], 
     const site = r.assessment
     if (!r.depthInRange) w.push({ code: 'depth-out-of-range', siteId: site.siteId, message: `Offshore depth of ${site.name} is outside 1–8000 m.` })
     if (r.breakingFraction > 0) w.push({ code: 'wave-breaking', siteId: site.siteId, fraction: r.breakingFraction,
-      message: `At ${site.name} the wave breaks before the shore (height over 0.78 of the depth, McCowan 1894, or beyond Synolakis's `
-        + 'non-breaking limit); its run-up follows the breaking branch of Synolakis 1987, made continuous, from the breaking depth: indicative.' })
+      message: `At ${site.name} the wave breaks before the shore (height over 0.78 of the depth, McCowan 1894, or beyond `
+        + 'Synolakis\'s non-breaking limit); its run-up follows the breaking branch of Synolakis 1987, made continuous, '
+        + 'from the breaking depth: indicative.' })
   }
   return w
 }

@@ -113,7 +113,10 @@ export interface EntryScratch {
 
 /** A fresh scratch record for `entryInto` (SI units, see EntryScratch). */
 export function newEntryScratch(): EntryScratch {
-  return { strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, surfaceSpeedMS: 0, airburst: false, massKg: 0, energyJ: 0, energyAirJ: 0, energySurfaceJ: 0 }
+  return {
+    strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, surfaceSpeedMS: 0, airburst: false,
+    massKg: 0, energyJ: 0, energyAirJ: 0, energySurfaceJ: 0,
+  }
 }
 
 /**

@@ -161,8 +161,11 @@ export function shoalingFactor(wavelengthM: number, fromDepthM: number, toDepthM
  * @param i.amplitudeM amplitude at h1, m; i.fromDepthM h1, m; i.toDepthM h2, m; i.wavelengthM at h1, m (optional)
  * @returns amplitude at h2, m, and whether it was capped by breaking
  */
-export function shoaledAmplitudeM(i: { amplitudeM: number; fromDepthM: number; toDepthM: number; wavelengthM?: number }): { amplitudeM: number; breaking: boolean } {
-  const k = i.wavelengthM === undefined ? Math.pow(i.fromDepthM / i.toDepthM, 0.25) : shoalingFactor(i.wavelengthM, i.fromDepthM, i.toDepthM)
+export function shoaledAmplitudeM(i: { amplitudeM: number; fromDepthM: number; toDepthM: number; wavelengthM?: number }):
+{ amplitudeM: number; breaking: boolean } {
+  const k = i.wavelengthM === undefined
+    ? Math.pow(i.fromDepthM / i.toDepthM, 0.25)
+    : shoalingFactor(i.wavelengthM, i.fromDepthM, i.toDepthM)
   const a = i.amplitudeM * k
   const cap = OCEAN.breakingIndex * i.toDepthM
   return a > cap ? { amplitudeM: cap, breaking: true } : { amplitudeM: a, breaking: false }
@@ -341,7 +344,10 @@ export interface SiteWave {
  * @param i.diameterM m; i.densityKgM3 kg/m³; i.surfaceSpeedMS speed reaching the sea, m/s; i.angleDeg degrees;
  *   i.distanceM from the impact, m; i.lawWeight w in [0, 1] (0: low law, 1: high law); i.profile the site's ShoreProfile
  */
-export function tsunamiAtSite(i: { diameterM: number; densityKgM3: number; surfaceSpeedMS: number; angleDeg: number; distanceM: number; lawWeight: number; profile: ShoreProfile }): SiteWave {
+export function tsunamiAtSite(i: {
+  diameterM: number; densityKgM3: number; surfaceSpeedMS: number; angleDeg: number
+  distanceM: number; lawWeight: number; profile: ShoreProfile
+}): SiteWave {
   const p = i.profile
   const h = p.openDepthM
   const dtc = cavityDiameterSI(i.diameterM, i.densityKgM3, i.surfaceSpeedMS, Math.sin(i.angleDeg * DEG))

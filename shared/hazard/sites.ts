@@ -41,7 +41,9 @@ function coastOf(openDepthM: number, site: Site): Coast {
   let c = COASTS.get(key)
   if (!c) {
     if (COASTS.size >= 512) COASTS.clear()
-    const shore = shoreProfile({ openDepthM, offshoreDepthM: site.offshoreDepthM ?? 1, shelfWidthKm: site.shelfWidthKm, beachSlopeDeg: site.beachSlopeDeg })
+    const shore = shoreProfile({
+      openDepthM, offshoreDepthM: site.offshoreDepthM ?? 1, shelfWidthKm: site.shelfWidthKm, beachSlopeDeg: site.beachSlopeDeg,
+    })
     const toe = new Map<number, number>()
     c = { shore, toeFor: (v) => { let h = toe.get(v); if (h === undefined) { h = toeHeightForRunUpM(shore, v); toe.set(v, h) } return h } }
     COASTS.set(key, c)

@@ -69,7 +69,9 @@ const SCALARS: Record<NumberKey<Assessment>, Meta> = {
   impactProbability: { label: 'Impact probability', dimension: 'probability', unit: '%' },
   airburstProbability: { label: 'Probability of an airburst (given impact)', dimension: 'probability', unit: '%' },
   oceanImpactProbability: { label: 'Probability that it strikes the sea (given impact)', dimension: 'probability', unit: '%' },
-  tsunamiProbability: { label: 'Probability of a tsunami, a wave of 1 m or more at its source (given impact)', dimension: 'probability', unit: '%' },
+  tsunamiProbability: {
+    label: 'Probability of a tsunami, a wave of 1 m or more at its source (given impact)', dimension: 'probability', unit: '%',
+  },
   torino: { label: 'Torino scale', dimension: 'torino', unit: '' },
   palermo: { label: 'Palermo scale', dimension: 'palermo', unit: '' },
 }
@@ -87,12 +89,12 @@ const SITE_DISTRIBUTIONS: Record<PercentileKey<SiteAssessment>, Meta> = {
 }
 
 /** The tsunami under each published source law alone (the band the literature spans; hazard engine 2.0). */
-const NO_BAND = 'n/a (model version without the tsunami band)'
+const BAND_LENGTH = { dimension: 'length', unit: 'm', whenMissing: 'n/a (model version without the tsunami band)' } as const
 const SITE_BAND: Record<string, Meta> = {
-  'tsunamiBand.low.amplitudeM': { label: 'Tsunami amplitude offshore, low source law (rim wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
-  'tsunamiBand.low.runUpM': { label: 'Tsunami run-up, low source law (rim wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
-  'tsunamiBand.high.amplitudeM': { label: 'Tsunami amplitude offshore, high source law (cavity-depth wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
-  'tsunamiBand.high.runUpM': { label: 'Tsunami run-up, high source law (cavity-depth wave)', dimension: 'length', unit: 'm', whenMissing: NO_BAND },
+  'tsunamiBand.low.amplitudeM': { label: 'Tsunami amplitude offshore, low source law (rim wave)', ...BAND_LENGTH },
+  'tsunamiBand.low.runUpM': { label: 'Tsunami run-up, low source law (rim wave)', ...BAND_LENGTH },
+  'tsunamiBand.high.amplitudeM': { label: 'Tsunami amplitude offshore, high source law (cavity-depth wave)', ...BAND_LENGTH },
+  'tsunamiBand.high.runUpM': { label: 'Tsunami run-up, high source law (cavity-depth wave)', ...BAND_LENGTH },
 }
 
 const SITE_SCALARS: Record<NumberKey<SiteAssessment> | 'name', Meta> = {

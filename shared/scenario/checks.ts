@@ -85,7 +85,8 @@ export function checkScenario(s: Scenario): CheckIssue[] {
     }
     const [lon, lat] = entry.solution.corridor.nominal
     if (!(entry.solution.waterDepthM > 0) && !isLand(lon, lat)) {
-      add([...path, 'solution', 'waterDepthM'], `the nominal impact point (${lon}, ${lat}) is at sea: give the water depth there (0 m means land)`)
+      add([...path, 'solution', 'waterDepthM'],
+        `the nominal impact point (${lon}, ${lat}) is at sea: give the water depth there (0 m means land)`)
     }
   })
 
@@ -93,7 +94,8 @@ export function checkScenario(s: Scenario): CheckIssue[] {
   s.sites.forEach((site, i) => {
     if (site.offshoreDepthM !== undefined) return
     for (const field of ['shelfWidthKm', 'beachSlopeDeg'] as const) {
-      if (site[field] !== undefined) add(['sites', i, field], `${field} has no effect on an inland site: give offshoreDepthM to make "${site.id}" coastal`)
+      if (site[field] === undefined) continue
+      add(['sites', i, field], `${field} has no effect on an inland site: give offshoreDepthM to make "${site.id}" coastal`)
     }
   })
 
