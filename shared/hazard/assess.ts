@@ -70,6 +70,7 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
     oceanImpactProbability: S.counts.sea / n,
     tsunamiProbability: tsu / n,
     surfaceEnergyMt: percentiles(S.surfaceEnergyMt, n),
+    airEnergyMt: percentiles(S.airEnergyMt, n),
     tsunamiSourceLaws: TSUNAMI_SOURCE_LAWS.map((l) => ({ ...l })),
     waterCavityDiameterM: tsu > 0 ? percentiles(gather(S, S.cavityM, FLAG_TSUNAMI, tsu), tsu) : null,
     sites: results.map((r) => r.assessment),
@@ -121,7 +122,9 @@ function warnings(solution: OrbitSolution, S: SampleSet, results: SiteResult[], 
   const w: ModelWarning[] = []
   const n = S.n
   if (S.counts.highBurst > 0) w.push({ code: 'high-burst', fraction: S.counts.highBurst / n,
-    message: `Scaled burst height above ${BLAST.highBurstScaledM} m/kt^1/3, beyond the reference data of the blast fit; ground overpressure is extrapolated and was under-predicted for Chelyabinsk (Brown et al. 2013).` })
+    message: `Scaled burst height above ${BLAST.highBurstScaledM} m/kt^1/3, beyond the nuclear-test data of the blast fits: `
+      + 'the ground overpressure there comes from the surface-burst law at the slant range, reduced for the thin air at the '
+      + 'burst (indicative; checked against the window damage of Chelyabinsk, Popova et al. 2013).' })
   if (tsu > 0) w.push({ code: 'tsunami-indicative', fraction: tsu / n,
     message: 'Tsunami figures are indicative and carry the spread of the published source laws, a factor of about 5 at the '
       + 'source: from the rim wave of Collins et al. 2005 (0.07 of the cavity, 1/r decay) to the cavity-depth wave of linear '
@@ -139,8 +142,9 @@ function warnings(solution: OrbitSolution, S: SampleSet, results: SiteResult[], 
       + 'sea-floor crater forms; the source laws are least reliable here.' })
   if (air > 0 && S.counts.sea > 0) w.push({ code: 'airburst-over-sea', fraction: air / n,
     message: 'An airburst over the sea puts much less energy into the water than a surface impact of the same body '
-      + '(Berger & Goodman 2018); only what reaches the surface makes a wave, and a tsunami is counted when the wave at its '
-      + `source reaches ${OCEAN.tsunamiSourceMinM} m.` })
+      + '(Berger & Goodman 2018): here only the debris that keeps decelerating below the burst and reaches the sea makes a '
+      + 'cavity and a wave (indicative; the blast loading of the sea surface is not modelled). A tsunami is counted when '
+      + `the wave reaches ${OCEAN.tsunamiMinAmplitudeM} m at ${OCEAN.tsunamiReferenceRangeM / 1000} km from the impact point.` })
   for (const r of results) {
     const site = r.assessment
     if (!r.depthInRange) w.push({ code: 'depth-out-of-range', siteId: site.siteId, message: `Offshore depth of ${site.name} is outside 1–8000 m.` })

@@ -1,11 +1,15 @@
+import { ENTRY } from './entry'
+
 /**
- * Airblast (Collins, Melosh & Marcus 2005, MAPS 40(6), 817–840, eqs. 54–58, after Glasstone &
- * Dolan 1977). Verified against the Earth Impact Effects Program source (sub `air_blast`): the
- * crossover constants px = 75 000 Pa and rx = 290 m, the Mach-stem onset
- * `r_m1 = 550 z1 / (1.2 (550 - z1))` (none for z1 >= 550 m) and the wind law are the same. A later
- * revision of that program replaces the exponential regular-reflection fit with a smoothed sum of
- * powers; we keep the 2005 fit, as hazard-model.md asks, and flag high bursts instead.
- * Equation numbers of Collins 2005 quoted below are from memory (the forms are verified).
+ * Airblast (Collins, Melosh & Marcus 2005, MAPS 40(6), 817–840, eqs. 54–58, after Glasstone & Dolan 1977).
+ * Verified against the Earth Impact Effects Program source (sub `air_blast`): the crossover constants
+ * px = 75 000 Pa and rx = 290 m, the Mach-stem onset `r_m1 = 550 z1 / (1.2 (550 - z1))` (none for z1 >= 550 m)
+ * are the same. Three changes of ours make the ground overpressure one continuous law, non-increasing with
+ * range and continuous in burst height (see `overpressurePa`): the regular- and Mach-reflection fits are joined
+ * by their maximum instead of a switch at the Mach onset; the surface-burst law at the slant range bounds the
+ * field from below, which carries the fits above their reference data (at z1 = 550 m/kt^(1/3) the regular-
+ * reflection fit and this bound agree to 1 % below the burst); and an altitude factor for the thinner air at the
+ * burst. Equation numbers of Collins 2005 quoted below are from memory (the forms are verified).
  */
 export const BLAST = {
   crossoverPressurePa: 75_000,
@@ -13,17 +17,16 @@ export const BLAST = {
   ambientPressurePa: 1e5,
   soundSpeedMS: 330,
   /**
-   * Scaled burst height (m per kt^(1/3)) above which the 1 kt reference data of the fits end:
-   * we take the upper end of Collins 2005's Mach-reflection fit (550 m). Above it the regular-
-   * reflection fit is extrapolated; Brown et al. 2013 (Nature 503, 238–241) found such predictions
-   * do not reproduce Chelyabinsk. The exact range of the nuclear-test data could not be verified:
-   * the limit is indicative.
+   * Scaled burst height (m per kt^(1/3)) at which the Mach-reflection fit of Collins 2005 ends (550 m): above
+   * it the ground overpressure comes from the slant-range bound with the altitude factor, outside the
+   * nuclear-test data (indicative; the assessment warns).
    */
   highBurstScaledM: 550,
 } as const
 
 const PX = BLAST.crossoverPressurePa
 const RX = BLAST.crossoverRangeM
+const SIX_H = 6 * ENTRY.scaleHeightM
 
 /**
  * Peak overpressure of a 1 kt surface burst at scaled range r1, `p = (px rx / (4 r1)) (1 + 3 (rx/r1)^1.3)`.
@@ -46,9 +49,37 @@ export function machOnsetScaledM(z1: number): number {
 }
 
 /**
- * Peak overpressure on the ground. Surface bursts, and airbursts beyond the Mach-stem onset, use
- * eq. 54; the regular-reflection zone of an airburst uses `p = 3.14e11 z1^-2.6 exp(-34.87 z1^-1.73 r1)`.
- * Ranges are scaled to 1 kt by E_kt^(1/3). Source: Collins et al. 2005, eqs. 53–57.
+ * Regular-reflection overpressure of an airburst, `p = 3.14e11 z1^-2.6 exp(-34.87 z1^-1.73 r1)`.
+ * Source: Collins et al. 2005, eq. 57.
+ * @param z1 scaled burst altitude, r1 scaled ground range, m kt^(-1/3)
+ * @returns overpressure, Pa
+ */
+export function regularReflectionPa(z1: number, r1: number): number {
+  return 3.14e11 * Math.pow(z1, -2.6) * Math.exp(-34.87 * Math.pow(z1, -1.73) * r1)
+}
+
+/**
+ * Altitude factor of the ground overpressure below a burst at altitude z: `(P(z)/P0)^(1/6) = exp(-z/(6H))`,
+ * H = 8 km. Derivation (ours, indicative): Sachs scaling at the burst altitude (Glasstone & Dolan 1977,
+ * ch. 3: overpressure scales with the ambient pressure, distance with (E/P)^(1/3)) gives a far-field
+ * amplitude proportional to P_b^(2/3); an acoustic wave travelling down into denser air keeps its energy flux,
+ * so its amplitude grows as sqrt(rho c) (ray acoustics, e.g. Pierce 1981, Acoustics, ch. 8 — from memory);
+ * together (P_b/P0)^(2/3 - 1/2). 1 at the surface; 0.52 at 31 km.
+ * @param burstAltitudeM burst altitude, m
+ * @returns factor, 0..1
+ */
+export function blastAltitudeFactor(burstAltitudeM: number): number {
+  return Math.exp(-Math.max(0, burstAltitudeM) / SIX_H)
+}
+
+/**
+ * Peak overpressure on the ground, one law for surface and air bursts:
+ * `p = A(z) max(p_regular(r), p_surface(min(max(r, r_m), sqrt(r^2 + z^2))))`, where p_surface is eq. 54,
+ * p_regular eq. 57 (airbursts only), r_m the Mach-stem onset (eq. 56) and A the altitude factor. Beyond the
+ * Mach onset this is eq. 54 at the ground range (Collins 2005); inside it, the larger of the regular-reflection
+ * fit and the surface-burst law held at its value at the onset (no jump, ours); the slant range keeps high
+ * bursts from vanishing. Non-increasing with range; continuous in energy and burst altitude (at z = 0 it is
+ * eq. 54). Ranges are scaled to 1 kt by E_kt^(1/3).
  * @param i.energyMt blast energy, Mt TNT; i.groundRangeM ground range, m; i.burstAltitudeM burst
  *   altitude, m (0 = surface burst)
  * @returns overpressure, Pa (Infinity at zero range of a surface burst)
@@ -56,12 +87,13 @@ export function machOnsetScaledM(z1: number): number {
 export function overpressurePa(i: { energyMt: number; groundRangeM: number; burstAltitudeM: number }): number {
   if (!(i.energyMt > 0)) return 0
   const s = Math.cbrt(i.energyMt * 1000)
-  const r1 = i.groundRangeM / s
-  const z1 = Math.max(0, i.burstAltitudeM) / s
-  if (z1 > 0 && r1 < machOnsetScaledM(z1)) {
-    return 3.14e11 * Math.pow(z1, -2.6) * Math.exp(-34.87 * Math.pow(z1, -1.73) * r1)
-  }
-  return surfaceBurstOverpressurePa(r1)
+  const r = Math.max(0, i.groundRangeM)
+  const z = Math.max(0, i.burstAltitudeM)
+  const z1 = z / s
+  const x = Math.min(Math.max(r, machOnsetScaledM(z1) * s), Math.hypot(r, z))
+  let p = surfaceBurstOverpressurePa(x / s)
+  if (z1 > 0) p = Math.max(p, regularReflectionPa(z1, r / s))
+  return p * blastAltitudeFactor(z)
 }
 
 /**
@@ -76,9 +108,9 @@ export function peakWindMS(overpressurePa: number): number {
 }
 
 /**
- * Ground range at which the peak overpressure falls to a threshold (the outermost such range, for
- * map rings). Same law as `overpressurePa`; found by a log-spaced scan and bisection.
- * Source: Collins et al. 2005, eqs. 53–57.
+ * Ground range at which the peak overpressure falls to a threshold (for map rings). Same law as
+ * `overpressurePa`, which is non-increasing with range: found by bisection on log range.
+ * Source: Collins et al. 2005, eqs. 54–57, with the changes named in `overpressurePa`.
  * @param energyMt blast energy, Mt TNT; burstAltitudeM burst altitude, m (0 = surface); thresholdPa, Pa
  * @returns ground range, m (0 when the threshold is never reached)
  */
@@ -86,20 +118,15 @@ export function overpressureRadiusM(energyMt: number, burstAltitudeM: number, th
   if (!(energyMt > 0) || !(thresholdPa > 0)) return 0
   const at = (r: number) => overpressurePa({ energyMt, groundRangeM: r, burstAltitudeM })
   const s = Math.cbrt(energyMt * 1000)
-  const steps = 400
-  const lo = Math.log(1e-2 * s), hi = Math.log(1e7 * s)
-  let last = -1
-  for (let k = 0; k <= steps; k++) if (at(Math.exp(lo + (hi - lo) * k / steps)) >= thresholdPa) last = k
-  if (last < 0) return 0
-  if (last === steps) return Math.exp(hi)
-  let a = Math.exp(lo + (hi - lo) * last / steps)
-  let b = Math.exp(lo + (hi - lo) * (last + 1) / steps)
+  let lo = Math.log(1e-2 * s), hi = Math.log(1e7 * s)
+  if (at(Math.exp(lo)) < thresholdPa) return at(0) >= thresholdPa ? Math.exp(lo) : 0
+  if (at(Math.exp(hi)) >= thresholdPa) return Math.exp(hi)
   for (let k = 0; k < 60; k++) {
-    const m = 0.5 * (a + b)
-    if (at(m) >= thresholdPa) a = m
-    else b = m
+    const m = 0.5 * (lo + hi)
+    if (at(Math.exp(m)) >= thresholdPa) lo = m
+    else hi = m
   }
-  return a
+  return Math.exp(lo)
 }
 
 /**

@@ -31,6 +31,7 @@ const H = ENTRY.scaleHeightM
 const RHO0 = ENTRY.surfaceAirDensity
 const CD = ENTRY.dragCoefficient
 const ALPHA = Math.sqrt(ENTRY.pancakeFactor * ENTRY.pancakeFactor - 1)
+const FP2 = ENTRY.pancakeFactor * ENTRY.pancakeFactor
 
 /**
  * Yield strength from bulk density, `Y = 10^(2.107 + 0.0624 sqrt(rho_i))`.
@@ -87,8 +88,19 @@ export interface EntryResult {
   breakupAltitudeM: number | null
   /** null when the body or its debris reaches the surface. */
   burstAltitudeM: number | null
-  /** 0 for an airburst. */
+  /** Speed at the burst altitude, km/s (null without an airburst). */
+  burstSpeedKmS: number | null
+  /** Speed with which the body, or after an airburst its decelerating debris, reaches the surface, km/s. */
   surfaceSpeedKmS: number
+  /** Diameter of the body or of the spread debris cloud where it reaches the surface, m (same mass). */
+  surfaceDiameterM: number
+  /**
+   * Height of the one point source that stands for the blast and the heat, m: the energy-weighted height of the
+   * deposition — the air share at the burst altitude (airburst) or where an intact body's drag loss peaks,
+   * H ln(2 a_v), and the surface share at 0. Continuous across the airburst boundary (ours, indicative).
+   */
+  sourceAltitudeM: number
+  /** Kinetic energy at entry; energyAirMt + energySurfaceMt equals it. */
   energyMt: number
   energyAirMt: number
   energySurfaceMt: number
@@ -102,8 +114,12 @@ export interface EntryScratch {
   burstAltitudeM: number
   /** Speed at the burst (airburst) or at the surface, m/s. */
   finalSpeedMS: number
-  /** Speed with which the body or its debris reaches the surface, m/s (0: nothing reaches it). */
+  /** Speed with which the body, or after an airburst its debris, reaches the surface, m/s. */
   surfaceSpeedMS: number
+  /** Diameter of the body, or of the spread debris cloud, where it reaches the surface, m. */
+  surfaceDiameterM: number
+  /** Height of the equivalent point source of blast and heat, m (see EntryResult.sourceAltitudeM). */
+  sourceAltitudeM: number
   airburst: boolean
   massKg: number
   energyJ: number
@@ -114,7 +130,7 @@ export interface EntryScratch {
 /** A fresh scratch record for `entryInto` (SI units, see EntryScratch). */
 export function newEntryScratch(): EntryScratch {
   return {
-    strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, surfaceSpeedMS: 0, airburst: false,
+    strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, surfaceSpeedMS: 0, surfaceDiameterM: 0, sourceAltitudeM: 0, airburst: false,
     massKg: 0, energyJ: 0, energyAirJ: 0, energySurfaceJ: 0,
   }
 }
@@ -136,13 +152,19 @@ export function entryInto(out: EntryScratch, L0: number, rhoI: number, v0: numbe
   out.energyJ = 0.5 * m * v0 * v0
   let zStar = NaN
   if (If < 1) zStar = -H * (Math.log(rs) + 1.308 - 0.314 * If - 1.303 * Math.sqrt(1 - If))
+  // Intact to the ground: eq. 8 at z = 0, not below the terminal speed (as the EIEP program does).
+  const vTerm = Math.min(v0, Math.sqrt(4 * rhoI * L0 * G_MS2 / (3 * RHO0 * CD)))
+  const vIntact = Math.max(vTerm, v0 * Math.exp(-av))
+  // An intact body deposits most where eq. 8's energy loss peaks, z = H ln(2 a_v) (0 when that is below ground).
+  const zIntact = av > 0.5 ? H * Math.log(2 * av) : 0
   if (!(zStar > 0)) {
-    // Intact to the ground: eq. 8 at z = 0, not below the terminal speed (as the EIEP program does).
-    const vTerm = Math.min(v0, Math.sqrt(4 * rhoI * L0 * G_MS2 / (3 * RHO0 * CD)))
-    const vs = Math.max(vTerm, v0 * Math.exp(-av))
-    setSurface(out, m, v0, vs, NaN)
+    setSurface(out, m, v0, vIntact, NaN, L0)
+    out.sourceAltitudeM = zIntact * (1 - (vIntact * vIntact) / (v0 * v0))
     return
   }
+  // A body whose strength is within BLEND_LO..1 of the peak stagnation pressure (I_f) may or may not break: a
+  // share w of its mass is taken to survive intact, so that the energy reaching the surface is continuous in I_f.
+  const w = If > BLEND_LO ? smoothstep((If - BLEND_LO) / (1 - BLEND_LO)) : 0
   const rhoStar = RHO0 * Math.exp(-zStar / H)
   const vStar = v0 * Math.exp(-av * rhoStar / RHO0)
   const l = L0 * sinT * Math.sqrt(rhoI / (CD * rhoStar))
@@ -151,37 +173,59 @@ export function entryInto(out: EntryScratch, L0: number, rhoI: number, v0: numbe
   if (zb > 0) {
     const a = ALPHA
     const vb = vStar * Math.exp(-fac * (a / 24) * (24 + 8 * a * a + 6 * a * l / H + 3 * a * a * a * l / H))
+    // Below the burst the debris keeps its mass and its pancake diameter f_p L0 and goes on decelerating by drag
+    // (eq. 8 with f_p^2 times the area): whatever speed is left reaches the surface. At z_b -> 0 this equals the
+    // swarm branch below, so the energy reaching the surface is continuous across the airburst boundary.
+    const vBroken = vb * Math.exp(-FP2 * av * -Math.expm1(-zb / H))
+    const vs = blendSpeed(vBroken, vIntact, w)
+    out.sourceAltitudeM = (1 - w) * zb * (1 - (vBroken * vBroken) / (v0 * v0)) + w * zIntact * (1 - (vIntact * vIntact) / (v0 * v0))
     out.breakupAltitudeM = zStar
     out.burstAltitudeM = zb
     out.finalSpeedMS = vb
-    out.surfaceSpeedMS = 0
+    out.surfaceSpeedMS = vs
+    out.surfaceDiameterM = (1 - w) * ENTRY.pancakeFactor * L0 + w * L0
     out.airburst = true
-    out.energyAirJ = 0.5 * m * (v0 * v0 - vb * vb)
-    out.energySurfaceJ = 0
+    out.energySurfaceJ = 0.5 * m * vs * vs
+    out.energyAirJ = out.energyJ - out.energySurfaceJ
     return
   }
   // Swarm reaches the surface: eq. 17 with the closed-form integral (fac * 2H/l * [...] = fac * J / l).
   const vs = vStar * Math.exp(-fac * swarmIntegralM(zStar, l, 0) / l)
-  setSurface(out, m, v0, vs, zStar)
+  setSurface(out, m, v0, blendSpeed(vs, vIntact, w), zStar, (1 - w) * pancakeDiameterM(L0, zStar, l, 0) + w * L0)
+  out.sourceAltitudeM = w * zIntact * (1 - (vIntact * vIntact) / (v0 * v0))
 }
 
-function setSurface(out: EntryScratch, m: number, v0: number, vs: number, zStar: number): void {
+/** Strength factor from which a share of the mass is taken to survive intact (ours, indicative). */
+const BLEND_LO = 0.7
+function smoothstep(x: number): number {
+  return x * x * (3 - 2 * x)
+}
+/** Speed whose kinetic energy is the mass-weighted mean of the broken (share 1 - w) and intact (w) outcomes. */
+function blendSpeed(vBroken: number, vIntact: number, w: number): number {
+  return w > 0 ? Math.sqrt((1 - w) * vBroken * vBroken + w * vIntact * vIntact) : vBroken
+}
+
+function setSurface(out: EntryScratch, m: number, v0: number, vs: number, zStar: number, diameterM: number): void {
+  out.surfaceDiameterM = diameterM
   out.breakupAltitudeM = zStar
   out.burstAltitudeM = NaN
   out.finalSpeedMS = vs
   out.surfaceSpeedMS = vs
   out.airburst = false
   out.energySurfaceJ = 0.5 * m * vs * vs
-  out.energyAirJ = Math.max(0, 0.5 * m * (v0 * v0 - vs * vs))
+  out.energyAirJ = out.energyJ - out.energySurfaceJ
 }
 
 /**
  * Fate of an impactor in the atmosphere (Collins et al. 2005 pancake model, eqs. 8–20).
  * @param i.diameterM diameter, m; i.densityKgM3 bulk density, kg/m³; i.speedKmS entry speed, km/s;
  *   i.angleDeg entry angle from the horizontal, degrees; i.strengthPa yield strength, Pa (default eq. 9)
+ * Below an airburst the debris cloud (mass m, diameter f_p L0) decelerates as eq. 8 with f_p^2 times the
+ * cross-section: `v_s = v_b exp(-f_p^2 a_v (1 - exp(-z_b/H)))`, `a_v = 3 rho0 C_D H / (4 rho_i L0 sin theta)`.
+ * This continuation is ours (indicative): it conserves energy and joins the swarm branch at z_b = 0.
  * @returns strength (Pa), strength factor (eq. 12, dimensionless), break-up and burst altitudes (m, or
- *   null), speed at the surface (km/s, 0 for an airburst), energies in Mt TNT: at entry, deposited in
- *   the air (`m (v0^2 - v_b^2)/2`) and delivered to the surface (`m v_surf^2/2`)
+ *   null), speeds at the burst (km/s or null) and at the surface (km/s; the debris after an airburst),
+ *   energies in Mt TNT: at entry, delivered to the surface (`m v_s^2/2`) and deposited in the air (the rest)
  */
 export function atmosphericEntry(i: EntryInput): EntryResult {
   const s = newEntryScratch()
@@ -192,7 +236,10 @@ export function atmosphericEntry(i: EntryInput): EntryResult {
     strengthFactor: s.strengthFactor,
     breakupAltitudeM: Number.isNaN(s.breakupAltitudeM) ? null : s.breakupAltitudeM,
     burstAltitudeM: s.airburst ? s.burstAltitudeM : null,
-    surfaceSpeedKmS: s.airburst ? 0 : s.finalSpeedMS / 1000,
+    burstSpeedKmS: s.airburst ? s.finalSpeedMS / 1000 : null,
+    surfaceSpeedKmS: s.surfaceSpeedMS / 1000,
+    surfaceDiameterM: s.surfaceDiameterM,
+    sourceAltitudeM: s.sourceAltitudeM,
     energyMt: s.energyJ / J_PER_MT,
     energyAirMt: s.energyAirJ / J_PER_MT,
     energySurfaceMt: s.energySurfaceJ / J_PER_MT,

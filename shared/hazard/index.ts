@@ -8,8 +8,11 @@ export * from './types'
 export { diameterFromMagnitude, kineticEnergyMt, massKg, entrySpeedFromVInfKmS, SIZE_LAW_KM } from './size'
 export { atmosphericEntry, strengthFromDensityPa, pancakeDiameterM, swarmIntegralM, ENTRY } from './entry'
 export type { EntryInput, EntryResult } from './entry'
-export { overpressurePa, peakWindMS, overpressureRadiusM, surfaceBurstOverpressurePa, machOnsetScaledM, severeDamageRadiusKmHillsGoda, BLAST } from './blast'
-export { thermalExposureJM2, fireballRadiusM, visibleFraction, burnThresholdJM2, THERMAL } from './thermal'
+export {
+  overpressurePa, peakWindMS, overpressureRadiusM, surfaceBurstOverpressurePa, machOnsetScaledM, regularReflectionPa, blastAltitudeFactor,
+  severeDamageRadiusKmHillsGoda, BLAST,
+} from './blast'
+export { thermalExposureJM2, radiantIntensityJSr, fireballRadiusM, visibleFraction, burnThresholdJM2, THERMAL } from './thermal'
 export { seismicMagnitude, effectiveMagnitude } from './seismic'
 export {
   waterCavityDiameterM, seafloorSpeedKmS, rimWaveAmplitudeM, tsunamiAmplitudeAtM, shoaledAmplitudeM, runUpM,

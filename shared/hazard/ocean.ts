@@ -30,8 +30,13 @@ export const OCEAN = {
   toeDepthM: 10,
   /** Gradient of the continental slope seaward of the shelf edge, degrees (typical 2–5°, from memory). */
   continentalSlopeDeg: 3,
-  /** A realisation "makes a tsunami" when its source amplitude (at the cavity rim) is at least this, m (common practice, no source). */
-  tsunamiSourceMinM: 1,
+  /**
+   * A realisation "makes a tsunami" when its wave (source laws mixed, 1/r decay) is at least tsunamiMinAmplitudeM at
+   * tsunamiReferenceRangeM from the impact point: a wave that matters on a nearby coast, not the splash of a small
+   * cavity (common practice, no source).
+   */
+  tsunamiMinAmplitudeM: 1,
+  tsunamiReferenceRangeM: 10_000,
 } as const
 
 /**
@@ -342,15 +347,18 @@ export interface SiteWave {
  * radius, shoaling to the offshore depth (capped at breaking) and to the toe on the site's tables, run-up.
  * Sources: as the functions it calls. *Indicative*.
  * @param i.diameterM m; i.densityKgM3 kg/m³; i.surfaceSpeedMS speed reaching the sea, m/s; i.angleDeg degrees;
+ *   i.surfaceDiameterM diameter of the body or debris cloud reaching the sea, m (default diameterM);
  *   i.distanceM from the impact, m; i.lawWeight w in [0, 1] (0: low law, 1: high law); i.profile the site's ShoreProfile
  */
 export function tsunamiAtSite(i: {
   diameterM: number; densityKgM3: number; surfaceSpeedMS: number; angleDeg: number
-  distanceM: number; lawWeight: number; profile: ShoreProfile
+  distanceM: number; lawWeight: number; profile: ShoreProfile; surfaceDiameterM?: number
 }): SiteWave {
   const p = i.profile
   const h = p.openDepthM
-  const dtc = cavityDiameterSI(i.diameterM, i.densityKgM3, i.surfaceSpeedMS, Math.sin(i.angleDeg * DEG))
+  // What arrives may be a spread debris cloud (EntryResult.surfaceDiameterM): same mass, wider.
+  const ds = i.surfaceDiameterM ?? i.diameterM, q = i.diameterM / ds
+  const dtc = cavityDiameterSI(ds, i.densityKgM3 * q * q * q, i.surfaceSpeedMS, Math.sin(i.angleDeg * DEG))
   if (!(dtc > 0)) return { cavityDiameterM: 0, sourceAmplitudeM: 0, offshoreAmplitudeM: 0, toeHeightM: 0, runUpM: 0, mainWaveSpeedMS: 0 }
   const lo = Math.min(OCEAN.rimWaveFactor * dtc, h), hi = Math.min(OCEAN.cavityDepthRatio * dtc, h)
   const a0 = lo * Math.exp(i.lawWeight * Math.log(hi / lo))

@@ -3,8 +3,8 @@ import { HazardRng, sampleAlbedoWright2016, sampleShoemakerAngleDeg, CLASS_ALBED
 import { entryInto, newEntryScratch, strengthFromDensityPa } from './entry'
 import { corridorGeometry, corridorPointInto } from './corridor'
 import { isLand } from './land'
-import { machOnsetScaledM, BLAST } from './blast'
-import { fireballRadiusM, THERMAL } from './thermal'
+import { machOnsetScaledM, blastAltitudeFactor, BLAST } from './blast'
+import { fireballRadiusM, radiantIntensityJSr } from './thermal'
 import { seismicMagnitude } from './seismic'
 import { cavityDiameterSI, impactWaveSpeedMS, wavelengthGridPosition, OCEAN } from './ocean'
 import { SIZE_LAW_KM } from './size'
@@ -12,7 +12,8 @@ import { DEG, J_PER_KT, J_PER_MT, WATER_DENSITY_KGM3 } from './units'
 
 /**
  * Bit flags of a realisation: impact point at sea, airburst, tsunami (the body or its debris reaches the sea
- * and the source amplitude, mixed between the source laws, is at least OCEAN.tsunamiSourceMinM), cavity reaches the sea floor.
+ * and its wave, mixed between the source laws, is at least OCEAN.tsunamiMinAmplitudeM at OCEAN.tsunamiReferenceRangeM), cavity
+ * reaches the sea floor.
  */
 export const FLAG_SEA = 1
 export const FLAG_AIRBURST = 2
@@ -37,11 +38,11 @@ const FIREBALL_PER_CBRT_KT = fireballRadiusM(J_PER_KT)
 export const REC = {
   /** Unit vector of the impact point. */
   x: 0, y: 1, z: 2,
-  /** Blast: E_kt^(1/3) (0: no blast), its log, scaled burst height z1 (0: surface), Mach onset range
-   * r_m1 E^(1/3) in metres, regular-reflection p0 = 3.14e11 z1^-2.6 and decay 34.87 z1^-1.73 / E^(1/3)
-   * per metre (Collins 2005): unscaled, so the site loop needs no division. */
+  /** Blast (see blast.ts `overpressurePa`): E_kt^(1/3) (0: no blast), its log, scaled source height z1 (0: surface),
+   * Mach onset range r_m1 E^(1/3) in metres (Infinity above the fit), regular-reflection p0 = 3.14e11 z1^-2.6 and
+   * decay 34.87 z1^-1.73 / E^(1/3) per metre (Collins 2005): unscaled, so the site loop needs no division. */
   s: 3, lnS: 4, z1: 5, rm: 6, p0: 7, beta: 8,
-  /** Thermal: eta E / (2 pi) (0: no fireball), burst altitude m, fireball radius m, E_Mt^(-1/6). */
+  /** Thermal: radiant intensity J/sr (0: none), source height m (also the blast's), fireball radius m, E_Mt^(-1/6). */
   thK: 9, zb: 10, rf: 11, burn: 12,
   /** Seismic source magnitude (NaN: nothing reaches the ground). */
   mag: 13,
@@ -49,19 +50,21 @@ export const REC = {
    * rim amplitude of the low and of the high law m, 1/(60 c_g) of the dominant wave (min/m), and the
    * dominant wavelength's place on WAVELENGTH_GRID (index plus fraction). */
   rimA: 14, rimR: 15, rimLo: 16, rimHi: 17, invC60: 18, lamU: 19,
-  size: 20,
+  /** Blast altitude factor (P(z)/P0)^(1/6) of the source height. */
+  alt: 20,
+  size: 21,
 } as const
 
 // Module-level copies for the realisation loop: imported bindings are read through accessors in some loaders.
 const O_RIMA = REC.rimA, O_RIMR = REC.rimR, O_RIMLO = REC.rimLo, O_RIMHI = REC.rimHi, O_INVC60 = REC.invC60, O_LAMU = REC.lamU
-const RIM_FACTOR = OCEAN.rimWaveFactor, CAVITY_DEPTH = OCEAN.cavityDepthRatio, SOURCE_MIN_M = OCEAN.tsunamiSourceMinM
+const RIM_FACTOR = OCEAN.rimWaveFactor, CAVITY_DEPTH = OCEAN.cavityDepthRatio, TSU_MIN_M = OCEAN.tsunamiMinAmplitudeM, TSU_REF_M = OCEAN.tsunamiReferenceRangeM
 const DRAG_W = 3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient / 2
 
 /** The realisations: summary columns plus the packed site-loop records. */
 export interface SampleSet {
   n: number
   seaDepthM: number
-  diameterM: Float64Array; massKg: Float64Array; energyMt: Float64Array; surfaceEnergyMt: Float64Array
+  diameterM: Float64Array; massKg: Float64Array; energyMt: Float64Array; surfaceEnergyMt: Float64Array; airEnergyMt: Float64Array
   burstAltM: Float64Array; cavityM: Float64Array; flags: Uint8Array
   lon: Float64Array; lat: Float64Array
   rec: Float64Array
@@ -75,7 +78,7 @@ export function allocSamples(capacity: number): SampleSet {
   const f64 = () => new Float64Array(capacity)
   return {
     n: 0, seaDepthM: 0,
-    diameterM: f64(), massKg: f64(), energyMt: f64(), surfaceEnergyMt: f64(), burstAltM: f64(), cavityM: f64(),
+    diameterM: f64(), massKg: f64(), energyMt: f64(), surfaceEnergyMt: f64(), airEnergyMt: f64(), burstAltM: f64(), cavityM: f64(),
     flags: new Uint8Array(capacity), lon: f64(), lat: f64(), rec: new Float64Array(REC.size * capacity),
     counts: { highBurst: 0, seafloor: 0, sea: 0 },
   }
@@ -129,14 +132,16 @@ export function drawSamples(solution: OrbitSolution, n: number, seed: number, st
     S.massKg[i] = scr.massKg
     S.energyMt[i] = scr.energyJ / J_PER_MT
     S.surfaceEnergyMt[i] = scr.energySurfaceJ / J_PER_MT
+    S.airEnergyMt[i] = scr.energyAirJ / J_PER_MT
     const zb = air ? scr.burstAltitudeM : 0
     S.burstAltM[i] = zb
-    // Blast energy: the airburst energy, or for a surface impact the larger of the energy lost in the
-    // air and the impact energy (as the EIEP program does).
-    const eBlast = air ? scr.energyAirJ : Math.max(scr.energyAirJ, scr.energySurfaceJ)
-    const s = Math.cbrt(eBlast / J_PER_KT)
+    // One source for blast and heat: the entry energy (air plus surface, conserved) at the energy-weighted height of
+    // its deposition (entry.ts sourceAltitudeM): continuous across the airburst boundary.
+    const E = scr.energyJ
+    const zSrc = scr.sourceAltitudeM
+    const s = Math.cbrt(E / J_PER_KT)
     const lnS = s > 0 ? Math.log(s) : 0
-    const z1 = air && s > 0 ? zb / s : 0
+    const z1 = s > 0 ? zSrc / s : 0
     R[o + REC.s] = s
     R[o + REC.lnS] = lnS
     R[o + REC.z1] = z1
@@ -150,17 +155,14 @@ export function drawSamples(solution: OrbitSolution, n: number, seed: number, st
       R[o + REC.p0] = 0
       R[o + REC.beta] = 0
     }
-    if (air && z1 > BLAST.highBurstScaledM) counts.highBurst++
-    // Fireball: the energy at the burst or at the surface, only above 15 km/s (Collins 2005; EIEP).
-    const eTh = air ? scr.energyAirJ : scr.energySurfaceJ
-    const fire = scr.finalSpeedMS >= THERMAL.minSpeedKmS * 1000 && eTh > 0
-    R[o + REC.thK] = fire ? THERMAL.luminousEfficiency * eTh / (2 * Math.PI) : 0
-    R[o + REC.zb] = zb
-    // When the fireball and blast energies are the same (the usual case), reuse E_kt^(1/3) and its log.
-    const same = eTh === eBlast
-    R[o + REC.rf] = fire ? (same ? FIREBALL_PER_CBRT_KT * s : fireballRadiusM(eTh)) : 0
-    R[o + REC.burn] = fire ? Math.exp(-(same ? 3 * lnS - LN_1000 : Math.log(eTh / J_PER_MT)) / 6) : 0
-    let eGround = air ? 0 : scr.energySurfaceJ
+    R[o + REC.alt] = blastAltitudeFactor(zSrc)
+    if (z1 > BLAST.highBurstScaledM) counts.highBurst++
+    // Heat: the air deposition radiates (Popova et al. 2013) and the impact fireball too (Collins 2005); no speed gate.
+    R[o + REC.thK] = s > 0 ? radiantIntensityJSr(scr.energyAirJ, scr.energySurfaceJ) : 0
+    R[o + REC.zb] = zSrc
+    R[o + REC.rf] = FIREBALL_PER_CBRT_KT * s
+    R[o + REC.burn] = s > 0 ? Math.exp(-(3 * lnS - LN_1000) / 6) : 0
+    let eGround = scr.energySurfaceJ
     if (sea) counts.sea++
     // Model uncertainty of the tsunami source: a log-uniform weight between the low and the high law, drawn
     // for every realisation so that the random stream does not depend on where the point falls.
@@ -171,16 +173,18 @@ export function drawSamples(solution: OrbitSolution, n: number, seed: number, st
       // Whatever reaches the sea surface (an impact, or the debris of a low burst) opens a cavity that is
       // continuous in its speed; the wave follows the cavity.
       const sinT = Math.sin(theta)
-      dtc = cavityDiameterSI(D, rho, vs, sinT)
+      // pi-scaling with the diameter of what arrives (body or debris cloud) and the same mass (indicative for a cloud).
+      const Ds = scr.surfaceDiameterM, q = D / Ds
+      dtc = cavityDiameterSI(Ds, rho * q * q * q, vs, sinT)
       rimLo = Math.min(RIM_FACTOR * dtc, h)
       rimHi = Math.min(CAVITY_DEPTH * dtc, h)
       rimA = rimLo > 0 ? rimLo * Math.exp(lawW * Math.log(rimHi / rimLo)) : 0
-      if (rimA >= SOURCE_MIN_M) flags |= FLAG_TSUNAMI
+      if (rimA * Math.min(1, dtc / (2 * TSU_REF_M)) >= TSU_MIN_M) flags |= FLAG_TSUNAMI
       waveC = impactWaveSpeedMS(dtc, h)
       lamU = wavelengthGridPosition(2 * dtc)
       // Transient cavity depth D/2.828 (EIEP) deeper than the sea: the cavity reaches the sea floor.
       if (dtc * CAVITY_DEPTH > h) { flags |= FLAG_SEAFLOOR; counts.seafloor++ }
-      const vsf = vs * Math.exp(-DRAG_W * h / (rho * D * sinT))
+      const vsf = vs * Math.exp(-DRAG_W * h / (rho * q * q * D * sinT))
       eGround = 0.5 * scr.massKg * vsf * vsf
     }
     S.cavityM[i] = dtc

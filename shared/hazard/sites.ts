@@ -27,6 +27,8 @@ function windThresholdPa(u: number): number {
 }
 
 // Module-level copies for the realisation loop: imported bindings are read through accessors in some loaders.
+const O_S = REC.s, O_LNS = REC.lnS, O_Z1 = REC.z1, O_RM = REC.rm, O_P0 = REC.p0, O_BETA = REC.beta, O_ALT = REC.alt
+const O_THK = REC.thK, O_ZB = REC.zb, O_RF = REC.rf, O_BURN = REC.burn, O_MAG = REC.mag
 const O_RIMA = REC.rimA, O_RIMR = REC.rimR, O_RIMLO = REC.rimLo, O_RIMHI = REC.rimHi, O_INVC60 = REC.invC60, O_LAMU = REC.lamU
 const REC_SIZE = REC.size, F_TSUNAMI = FLAG_TSUNAMI
 
@@ -133,12 +135,19 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
     dist[i] = rKm
     if (rKm < dLo) dLo = rKm
     if (rKm > dHi) dHi = rKm
-    const s = Rc[o + 3]!
+    const s = Rc[o + O_S]!
     let p = 0
     if (s > 0) {
-      if (Rc[o + 5]! > 0 && r < Rc[o + 6]!) p = Rc[o + 7]! * Math.exp(-Rc[o + 8]! * r)
-      // Collins 2005 eq. 54 with r1 = r/s and (rx/r1)^1.3 = exp(1.3 (ln rx + ln s - ln r)).
-      else p = PXRX4 * s * invR * (1 + 3 * Math.exp(1.3 * (LN_RX + Rc[o + 4]! - lr)))
+      // blast.ts `overpressurePa`: eq. 54 at min(max(r, r_m), slant range), at least the regular-reflection fit,
+      // times the altitude factor. (rx/x)^1.3 = exp(1.3 (ln rx + ln s - ln x)).
+      const zs = Rc[o + O_ZB]!
+      const rm = Rc[o + O_RM]!
+      let x = r > rm ? r : rm
+      if (zs > 0) { const sl = Math.sqrt(r * r + zs * zs); if (sl < x) x = sl }
+      const lx = x === r ? lr : Math.log(x)
+      p = PXRX4 * s / x * (1 + 3 * Math.exp(1.3 * (LN_RX + Rc[o + O_LNS]! - lx)))
+      if (Rc[o + O_Z1]! > 0) { const pr = Rc[o + O_P0]! * Math.exp(-Rc[o + O_BETA]! * r); if (pr > p) p = pr }
+      p *= Rc[o + O_ALT]!
     }
     op[i] = p
     if (p < pLo) pLo = p
@@ -146,14 +155,14 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
     let c = 0
     while (c < nP && p >= pv[c]!) c++
     pHits[c]!++
-    const K = Rc[o + 9]!
+    const K = Rc[o + O_THK]!
     if (K > 0) {
-      const zb = Rc[o + 10]!
+      const zb = Rc[o + O_ZB]!
       const hidden = (1 - dot) * EARTH_RADIUS_M - zb
-      const rf = Rc[o + 11]!
+      const rf = Rc[o + O_RF]!
       if (hidden < rf) {
         const phi = visibleFraction(hidden, rf) * K / (r * r + zb * zb)
-        const rel = phi * Rc[o + 12]!
+        const rel = phi * Rc[o + O_BURN]!
         c = 0
         while (c < nTv && rel >= tv[c]!) c++
         tHits[c]!++
@@ -166,7 +175,7 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
         }
       }
     }
-    const M = Rc[o + 13]!
+    const M = Rc[o + O_MAG]!
     if (M === M) {
       // Collins 2005 eq. 41 (as effectiveMagnitude), inlined.
       const me = rKm < 60 ? M - 0.0238 * rKm : rKm < 700 ? M - 0.0048 * rKm - 1.1644 : effectiveMagnitude(M, rKm)

@@ -1,19 +1,34 @@
 import { EARTH_RADIUS_M, J_PER_MT } from './units'
 
 /**
- * Thermal radiation of the fireball (Collins, Melosh & Marcus 2005, MAPS 40(6), 817–840,
- * "Thermal radiation" section). Verified against the Earth Impact Effects Program source (sub
- * `find_thermal`): fireball radius 0.002 E^(1/3) m, luminous efficiency 3e-3, the visible fraction
- * `f = (2/pi)(delta - (h/R_f) sin delta)` with `h = (1 - cos Delta) R_E`, and no fireball below
- * 15 km/s. Our one adaptation: for an airburst the fireball centre is raised to the burst altitude
- * (the hidden height becomes h - z_b) and the range is the slant range; the program puts every
- * fireball on the ground.
+ * Thermal radiation (Collins, Melosh & Marcus 2005, MAPS 40(6), 817–840, "Thermal radiation" section, for the
+ * fireball of a surface impact). Verified against the Earth Impact Effects Program source (sub `find_thermal`):
+ * fireball radius 0.002 E^(1/3) m, luminous efficiency 3e-3 and the visible fraction
+ * `f = (2/pi)(delta - (h/R_f) sin delta)` with `h = (1 - cos Delta) R_E`. Our changes:
+ * - Energy deposited in the air radiates too, isotropically from the burst (or, for a body reaching the surface,
+ *   from the ground), with the panchromatic luminous efficiency measured for the Chelyabinsk airburst,
+ *   7 ± 3 % (Popova et al. 2013, Science 342, 1069–1073; theory there spans 5.6–13.2 %).
+ * - No speed gate: the program forms no fireball below 15 km/s; that switch made the heat jump with size and
+ *   left airbursts without heat. The impact fireball keeps 3e-3 of the surface energy at every speed.
+ * - The source is raised to the burst height (the hidden height becomes h - z) and the range is the slant range.
  */
 export const THERMAL = {
+  /** Share of the energy reaching the surface radiated by the impact fireball (Collins 2005). */
   luminousEfficiency: 3e-3,
-  /** Below this speed (at the burst or at the surface) no fireball forms, km/s. */
-  minSpeedKmS: 15,
+  /** Share of the energy deposited in the air that is radiated (Popova et al. 2013, Chelyabinsk, 7 ± 3 %). */
+  airburstLuminousEfficiency: 0.07,
 } as const
+
+/**
+ * Radiant energy per steradian towards the ground, J/sr: `eta_air E_air / (4 pi) + eta E_surface / (2 pi)` (the
+ * air deposition radiates into the whole sphere, the impact fireball into the half-space above the ground).
+ * Sources: Popova et al. 2013 (eta_air), Collins et al. 2005 (eta, eq. 31).
+ * @param airEnergyJ energy deposited in the air, J; surfaceEnergyJ energy reaching the surface, J
+ * @returns J/sr
+ */
+export function radiantIntensityJSr(airEnergyJ: number, surfaceEnergyJ: number): number {
+  return THERMAL.airburstLuminousEfficiency * airEnergyJ / (4 * Math.PI) + THERMAL.luminousEfficiency * surfaceEnergyJ / (2 * Math.PI)
+}
 
 /**
  * Fireball radius, `R_f = 0.002 E^(1/3)` (E in joules). Source: Collins et al. 2005, eq. 30 (number from memory).
@@ -40,20 +55,23 @@ export function visibleFraction(hiddenHeightM: number, fireballRadiusM: number):
 }
 
 /**
- * Thermal exposure at a ground range, `Phi = f eta E / (2 pi r^2)`, eta = 3e-3, f the visible
- * fraction over a curved Earth. Source: Collins et al. 2005, eqs. 31–35 (numbers from memory).
- * @param i.energyMt fireball energy, Mt TNT; i.groundRangeM ground range, m; i.burstAltitudeM burst
- *   altitude, m (0 at the surface)
+ * Thermal exposure at a ground range, `Phi = f I / (r^2 + z^2)`, I from `radiantIntensityJSr`, f the visible
+ * fraction of a fireball of radius 0.002 E^(1/3) over a curved Earth. Sources: Collins et al. 2005, eqs. 30–35
+ * (numbers from memory); Popova et al. 2013 for the air share.
+ * @param i.energyMt total energy (entry energy), Mt TNT; i.groundRangeM ground range, m; i.burstAltitudeM
+ *   height of the source, m (0 at the surface); i.airEnergyMt the part deposited in the air, Mt TNT (default:
+ *   all of it for a source above the ground, none at the surface)
  * @returns exposure, J/m²
  */
-export function thermalExposureJM2(i: { energyMt: number; groundRangeM: number; burstAltitudeM: number }): number {
+export function thermalExposureJM2(i: { energyMt: number; groundRangeM: number; burstAltitudeM: number; airEnergyMt?: number }): number {
   const E = i.energyMt * J_PER_MT
   if (!(E > 0)) return 0
+  const eAir = Math.min(E, Math.max(0, (i.airEnergyMt ?? (i.burstAltitudeM > 0 ? i.energyMt : 0)) * J_PER_MT))
   const delta = i.groundRangeM / EARTH_RADIUS_M
   const h = (1 - Math.cos(delta)) * EARTH_RADIUS_M - i.burstAltitudeM
   const f = visibleFraction(h, fireballRadiusM(E))
   const r2 = i.groundRangeM * i.groundRangeM + i.burstAltitudeM * i.burstAltitudeM
-  return f * THERMAL.luminousEfficiency * E / (2 * Math.PI * r2)
+  return f * radiantIntensityJSr(eAir, E - eAir) / r2
 }
 
 /**

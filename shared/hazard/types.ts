@@ -108,8 +108,9 @@ export interface Assessment {
   /** Share of impact realisations whose impact point is at sea (Natural Earth 1:50m land), airburst or not. */
   oceanImpactProbability: number
   /**
-   * Share of realisations that make a tsunami: the body or its debris reaches the sea and the wave at the cavity
-   * rim (source laws mixed) is at least 1 m (OCEAN.tsunamiSourceMinM). Smaller waves still enter the site figures.
+   * Share of realisations that make a tsunami: the body or its debris reaches the sea and its wave (source laws mixed)
+   * is at least 1 m at 10 km from the impact point (OCEAN.tsunamiMinAmplitudeM, tsunamiReferenceRangeM). Smaller waves
+   * still enter the site figures.
    */
   tsunamiProbability: number
   /** Energy delivered to the surface (water or ground), Mt. */

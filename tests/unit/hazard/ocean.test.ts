@@ -29,7 +29,8 @@ describe('ocean impacts (Collins, Melosh & Marcus 2005, MAPS 40(6); tsunami figu
     const stony = atmosphericEntry({ diameterM: 50, densityKgM3: 3000, speedKmS: 17, angleDeg: 45 })
     const iron = atmosphericEntry({ diameterM: 50, densityKgM3: 7800, speedKmS: 17, angleDeg: 45 })
     expect(stony.burstAltitudeM).not.toBeNull()
-    expect(stony.energySurfaceMt).toBe(0)
+    // Its debris keeps decelerating below the burst: almost nothing is left at the water.
+    expect(stony.energySurfaceMt).toBeLessThan(0.01 * stony.energyMt)
     expect(iron.burstAltitudeM).toBeNull()
     expect(iron.energySurfaceMt).toBeGreaterThan(0.3 * iron.energyMt)
     // Same object, weak against strong: the strong one delivers several times more energy to the sea.
@@ -38,7 +39,10 @@ describe('ocean impacts (Collins, Melosh & Marcus 2005, MAPS 40(6); tsunami figu
     expect(strong.energySurfaceMt / weak.energySurfaceMt).toBeGreaterThan(3)
     const cavity = (e: typeof weak) => waterCavityDiameterM({ diameterM: 100, densityKgM3: 3000, speedKmS: e.surfaceSpeedKmS, angleDeg: 45 })
     expect(cavity(strong)).toBeGreaterThan(cavity(weak))
-    expect(waterCavityDiameterM({ diameterM: 50, densityKgM3: 3000, speedKmS: stony.surfaceSpeedKmS, angleDeg: 45 })).toBe(0)
+    // The burst's slow debris cloud (same mass, seven times wider) opens a far smaller cavity than the iron body.
+    const q = 50 / stony.surfaceDiameterM
+    const cloud = waterCavityDiameterM({ diameterM: stony.surfaceDiameterM, densityKgM3: 3000 * q ** 3, speedKmS: stony.surfaceSpeedKmS, angleDeg: 45 })
+    expect(cloud).toBeLessThan(0.25 * waterCavityDiameterM({ diameterM: 50, densityKgM3: 7800, speedKmS: iron.surfaceSpeedKmS, angleDeg: 45 }))
   })
 
   it('slows the body in the water column with C_D = 0.877 (Collins 2005; verified in the EIEP source)', () => {
