@@ -14,16 +14,16 @@ export interface MedianBlastCase {
 export type BlastInputs = Pick<Assessment, 'energyMt' | 'surfaceEnergyMt' | 'airburstProbability' | 'burstAltitudeKm'>
 
 /**
- * The median case: an airburst at the median burst altitude when most realisations burst in the air,
- * otherwise a surface burst whose blast energy is the larger of the energy lost in the air and the
- * energy at the surface (as the engine does per realisation, after the EIEP program).
+ * The median case: the median entry energy (the engine's blast energy: air plus surface, conserved) at the median
+ * burst altitude when most realisations burst in the air, otherwise at the surface. The engine raises each
+ * realisation's source to the energy-weighted height of its deposition, which for a burst is close to the burst
+ * altitude; the rings are a sketch of the median case, the site figures come from every realisation.
  */
 export function medianBlastCase(a: BlastInputs): MedianBlastCase {
   if (a.airburstProbability >= 0.5 && a.burstAltitudeKm) {
     return { energyMt: a.energyMt.p50, burstAltitudeM: a.burstAltitudeKm.p50 * 1000, regime: 'airburst' }
   }
-  const surface = a.surfaceEnergyMt.p50
-  return { energyMt: Math.max(surface, a.energyMt.p50 - surface), burstAltitudeM: 0, regime: 'surface' }
+  return { energyMt: a.energyMt.p50, burstAltitudeM: 0, regime: 'surface' }
 }
 
 /** Overpressure thresholds drawn as rings by default: windows, wood-frame houses collapse, multistorey collapse. */

@@ -44,12 +44,12 @@ describe('geodesic rings', () => {
 })
 
 describe('blast rings of an assessment', () => {
-  it('uses a surface burst of the larger of air-lost and surface energy when most realisations reach the surface', () => {
+  it('uses a surface burst of the entry energy (air plus surface, as the engine) when most realisations reach the surface', () => {
     const a = surfaceAssessment()
     const b = medianBlastCase(a)
     expect(b.regime).toBe('surface')
     expect(b.burstAltitudeM).toBe(0)
-    expect(b.energyMt).toBeCloseTo(193 - 63, 6)
+    expect(b.energyMt).toBeCloseTo(193, 6)
   })
 
   it('uses the median burst altitude when most realisations burst in the air', () => {
