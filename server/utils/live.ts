@@ -10,7 +10,7 @@ import { BUILT_IN_INJECT_KINDS } from '../../shared/scenario/constants'
 import { validateHazardFields } from '../../shared/scenario/fields'
 import type { Inject } from '../../shared/scenario/schema'
 
-/** Samples of every published assessment (hazard-model.md: 20 000 keeps the percentiles steady). */
+/** Samples of every published assessment (20 000 keeps the 5/50/95 percentiles steady from run to run). */
 export const PUBLISH_SAMPLES = 20_000
 
 /** An inject as the live services use it: a scenario inject, or an ad-hoc message's definition. */
