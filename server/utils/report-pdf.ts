@@ -105,6 +105,7 @@ function finalHazardPdf(h: ThreatSummary): Content[] {
     { text: pt(`Airbursts: ${h.airburstText} of impacts.`), style: 'para' },
     { text: 'Tsunami at the coastal sites', style: 'h3' },
     { text: pt(h.bandNote), style: 'para' },
+    { text: 'Each cell: the median, with the 5–95 % range in brackets (indicative).', style: 'muted', margin: [0, 0, 0, 2] },
   ]
   if (!h.coast.length) out.push({ text: 'No realisation sends a wave to a coastal site.', style: 'para' })
   else if (h.coast.some(c => c.band)) {
@@ -114,7 +115,7 @@ function finalHazardPdf(h: ThreatSummary): Content[] {
         c.name, c.distanceText, c.band?.low.runUpText ?? c.runUpText, c.band?.high.runUpText ?? '—',
         c.band?.low.amplitudeText ?? '—', c.band?.high.amplitudeText ?? '—',
       ]),
-      ['*', 58, 82, 82, 82, 82], { fontSize: 7.5 },
+      ['*', 62, 78, 78, 78, 78], { fontSize: 7.5 },
     ))
   }
   else {
@@ -126,7 +127,8 @@ function finalHazardPdf(h: ThreatSummary): Content[] {
       style: 'muted' })
     out.push({ ul: h.laws.map(law), margin: [0, 0, 0, 6] })
   }
-  out.push({ text: 'Heat at the sites', style: 'h3' }, { text: pt(h.heatText), style: 'para' })
+  const cells = h.heat.length ? ' Thermal exposure: median (5–95 %).' : ''
+  out.push({ text: 'Heat at the sites', style: 'h3' }, { text: pt(`${h.heatText}${cells}`), style: 'para' })
   if (h.heat.length) {
     out.push(pdfTable(
       ['Site', 'Thermal exposure', 'First-degree burns', 'Second-degree burns', 'Third-degree burns'],

@@ -98,6 +98,11 @@ export function heatText(a: Assessment): string {
   return `Heat from ${from} reaches ${rows.length === 1 ? 'one site' : `${rows.length} sites`}. Burn chances are conditional on impact.`
 }
 
+/** "15 m (11–19)": a median with its 5–95 % range in brackets, for table cells whose heading says so. */
+export function compactText(p: Percentiles, unit: string): string {
+  return `${sig(p.p50)} ${unit} (${rangeText(p, '')})`
+}
+
 /** A solution's hazard as text for the after-action report (the PDF and the printable page draw the same strings). */
 export interface ThreatSummary {
   label: string
@@ -118,7 +123,7 @@ export interface ThreatSummary {
 /** The summary of one assessment for the report; without the band (older model versions) it says so. */
 export function threatSummary(a: Assessment, label: string): ThreatSummary {
   const laws = sourceLaws(a)
-  const m = (p: Percentiles) => medianRangeText(p, 'm')
+  const m = (p: Percentiles) => compactText(p, 'm')
   const band = (b: CoastRow['band']) => b && {
     low: { runUpText: m(b.low.runUpM), amplitudeText: m(b.low.amplitudeM) },
     high: { runUpText: m(b.high.runUpM), amplitudeText: m(b.high.amplitudeM) },
@@ -136,7 +141,7 @@ export function threatSummary(a: Assessment, label: string): ThreatSummary {
     heatSource: heatSourceText(a),
     heatText: heatText(a),
     heat: heatRows(a).map(r => ({
-      siteId: r.siteId, name: r.name, thermalText: medianRangeText(r.thermalMJM2, 'MJ/m²'),
+      siteId: r.siteId, name: r.name, thermalText: compactText(r.thermalMJM2, 'MJ/m²'),
       burn1: formatPercent(r.burn1), burn2: formatPercent(r.burn2), burn3: formatPercent(r.burn3),
     })),
   }

@@ -38,8 +38,8 @@ describe('the tsunami band in words', () => {
     expect(rows[0]!.band!.high.runUpM.p50).toBe(20)
     const s = threatSummary(withSites({ band: true }), 'Solution 7')
     expect(s.laws.map(l => l.key)).toEqual(['low', 'high'])
-    expect(s.coast[0]!.band!.low.runUpText).toBe('4 m (5–95 %: 2–8)')
-    expect(s.coast[0]!.band!.high.runUpText).toBe('20 m (5–95 %: 10–40)')
+    expect(s.coast[0]!.band!.low.runUpText).toBe('4 m (2–8)')
+    expect(s.coast[0]!.band!.high.runUpText).toBe('20 m (10–40)')
   })
 
   it('says the spread is wide and names the largest ratio of the laws at the sites', () => {
@@ -52,7 +52,7 @@ describe('the tsunami band in words', () => {
     const s = threatSummary(withSites(), 'Solution 7')
     expect(s.laws).toEqual([])
     expect(s.coast.map(c => c.band)).toEqual([null, null])
-    expect(s.coast[0]!.runUpText).toBe('16 m (5–95 %: 12–20)')
+    expect(s.coast[0]!.runUpText).toBe('16 m (12–20)')
     expect(s.bandNote).toContain('model test, which gives no tsunami band')
     expect(s.energies.map(e => e.key)).toEqual(['entry', 'surface'])
   })
@@ -86,7 +86,7 @@ describe('energy and heat in words', () => {
     a.sites[2]!.exceedance = { ...a.sites[2]!.exceedance, burn1: 0.9, burn2: 0.6, burn3: 0.2 }
     expect(heatRows(a).map(r => r.siteId)).toEqual(['porto-salgado', 'far'])
     const s = threatSummary(a, 'x')
-    expect(s.heat[0]).toMatchObject({ thermalText: '0.6 MJ/m² (5–95 %: 0.3–0.9)', burn1: '90 %', burn3: '20 %' })
+    expect(s.heat[0]).toMatchObject({ thermalText: '0.6 MJ/m² (0.3–0.9)', burn1: '90 %', burn3: '20 %' })
     expect(s.heatText).toMatch(/^Heat from the airburst flash reaches 2 sites/)
   })
 })
