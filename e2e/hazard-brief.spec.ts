@@ -105,18 +105,12 @@ test('a facilitator reads the threat brief, moves through the solutions and zoom
   await shot(page, 'brief-laptop-light-charts')
 })
 
-test('the brief shows the tsunami band under both published laws, the energy in the air and at the surface, and the heat', async ({ page }) => {
+test('the brief shows the tsunami band of each coastal site under both published source laws, named with their sources', async ({ page }) => {
   const id = await demoScenarioId(page, false)
   // Solution 7: a 160 m stony body strikes the sea some 50 km off the coast.
   await page.goto(`/brief/${id}?solution=s7-certain`)
   await briefReady(page)
-
-  // The worst run-up names each law's median; the energy is labelled by where it goes.
   await expect(page.getByTestId('figure-runup')).toContainText(/low law [\d.]+ m, high law [\d.]+ m/)
-  await expect(page.getByTestId('figure-energy')).toContainText('Energy at entry')
-  await expect(page.getByTestId('range-energy-entry')).toContainText(/Energy at entry.*\d+ Mt TNT/)
-  await expect(page.getByTestId('range-energy-air')).toContainText(/Deposited in the air.*\d.* Mt TNT/)
-  await expect(page.getByTestId('range-energy-surface')).toContainText(/Reaching the surface.*\d.* Mt TNT/)
 
   // The tsunami tab: the caveat, both laws named with their sources (opened from the keyboard), and the band per site.
   await page.getByTestId('tab-tsunami').click()
@@ -129,8 +123,7 @@ test('the brief shows the tsunami band under both published laws, the energy in 
   await expect(laws.getByTestId('law-high')).toContainText('Ward & Asphaug 2000')
   const band = page.getByTestId('tsunami-band')
   await expect(band.locator('tbody tr')).toHaveCount(11)
-  const row = band.getByTestId('band-porto-salgado')
-  const cells = (await row.locator('td').allInnerTexts()).map(t => Number.parseFloat(t.replace(',', '')))
+  const cells = (await band.getByTestId('band-porto-salgado').locator('td').allInnerTexts()).map(t => Number.parseFloat(t.replace(',', '')))
   expect(cells).toHaveLength(4)
   const [runLow, runHigh, ampLow, ampHigh] = cells as [number, number, number, number]
   expect(runLow).toBeGreaterThan(0)
@@ -139,21 +132,32 @@ test('the brief shows the tsunami band under both published laws, the energy in 
   await page.getByTestId('hazard-charts').scrollIntoViewIfNeeded()
   await shot(page, 'brief-laptop-tsunami-band')
 
-  // The heat tab: the fireball of a surface impact this size heats the nearest sites (no speed gate since model 2).
+  await page.getByTestId('tab-sites').click()
+  const table = page.getByTestId('sites-table')
+  await expect(table.getByRole('columnheader', { name: /Run-up by law/ })).toBeVisible()
+  await expect(table.locator('tbody tr').filter({ hasText: 'Porto Salgado' })).toContainText(/low … high law/)
+  await expect(page.getByTestId('hazard-caution')).toContainText('for training only')
+})
+
+test('the brief labels the energy in the air and at the surface, and shows the heat at the nearest sites', async ({ page }) => {
+  const id = await demoScenarioId(page, false)
+  await page.goto(`/brief/${id}?solution=s7-certain`)
+  await briefReady(page)
+  await expect(page.getByTestId('figure-energy')).toContainText('Energy at entry')
+  await expect(page.getByTestId('range-energy-entry')).toContainText(/Energy at entry.*\d+ Mt TNT/)
+  await expect(page.getByTestId('range-energy-air')).toContainText(/Deposited in the air.*\d.* Mt TNT/)
+  await expect(page.getByTestId('range-energy-surface')).toContainText(/Reaching the surface.*\d.* Mt TNT/)
+
+  // A fireball this size (no speed gate since hazard model 2) heats the nearest site, about 30 km away.
   await page.getByTestId('tab-heat').click()
   const heat = page.getByTestId('hazard-heat')
   await expect(heat.getByTestId('heat-note')).toContainText(/Heat from the fireball/)
   await expect(heat.getByTestId('heat-vento-largo')).toContainText(/[\d.]+ MJ\/m² \(5–95 %: /)
   await expect(page.getByTestId('figure-heat')).toContainText(/MJ\/m²/)
+  await page.getByTestId('hazard-charts').scrollIntoViewIfNeeded()
   await shot(page, 'brief-laptop-heat')
-
-  // The sites table carries the band and the heat columns.
   await page.getByTestId('tab-sites').click()
-  const table = page.getByTestId('sites-table')
-  await expect(table.getByRole('columnheader', { name: /Run-up by law/ })).toBeVisible()
-  await expect(table.getByRole('columnheader', { name: /Heat/ })).toBeVisible()
-  await expect(table.locator('tbody tr').filter({ hasText: 'Porto Salgado' })).toContainText(/low … high law/)
-  await expect(page.getByTestId('hazard-caution')).toContainText('for training only')
+  await expect(page.getByTestId('sites-table').getByRole('columnheader', { name: /Heat/ })).toBeVisible()
   await expect(page.getByTestId('drill-banner').first()).toContainText('EXERCISE')
 })
 
