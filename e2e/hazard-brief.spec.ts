@@ -105,6 +105,76 @@ test('a facilitator reads the threat brief, moves through the solutions and zoom
   await shot(page, 'brief-laptop-light-charts')
 })
 
+test('the brief shows the tsunami band of each coastal site under both published source laws, named with their sources', async ({ page }) => {
+  const id = await demoScenarioId(page, false)
+  // Solution 7: a 160 m stony body strikes the sea some 50 km off the coast.
+  await page.goto(`/brief/${id}?solution=s7-certain`)
+  await briefReady(page)
+  await expect(page.getByTestId('figure-runup')).toContainText(/low law [\d.]+ m, high law [\d.]+ m/)
+
+  // The tsunami tab: the caveat, both laws named with their sources (opened from the keyboard), and the band per site.
+  await page.getByTestId('tab-tsunami').click()
+  const laws = page.getByTestId('tsunami-laws')
+  await expect(laws).toContainText('The spread between the published tsunami source laws is wide')
+  await laws.getByText('The two published source laws and their sources').focus()
+  await page.keyboard.press('Enter')
+  await expect(laws.getByTestId('law-low')).toBeVisible()
+  await expect(laws.getByTestId('law-low')).toContainText('Collins')
+  await expect(laws.getByTestId('law-high')).toContainText('Ward & Asphaug 2000')
+  const band = page.getByTestId('tsunami-band')
+  await expect(band.locator('tbody tr')).toHaveCount(11)
+  const cells = (await band.getByTestId('band-porto-salgado').locator('td').allInnerTexts()).map(t => Number.parseFloat(t.replace(',', '')))
+  expect(cells).toHaveLength(4)
+  const [runLow, runHigh, ampLow, ampHigh] = cells as [number, number, number, number]
+  expect(runLow).toBeGreaterThan(0)
+  expect(runHigh).toBeGreaterThanOrEqual(runLow)
+  expect(ampHigh).toBeGreaterThanOrEqual(ampLow)
+  await page.getByTestId('hazard-charts').scrollIntoViewIfNeeded()
+  await shot(page, 'brief-laptop-tsunami-band')
+
+  await page.getByTestId('tab-sites').click()
+  const table = page.getByTestId('sites-table')
+  await expect(table.getByRole('columnheader', { name: /Run-up by law/ })).toBeVisible()
+  await expect(table.locator('tbody tr').filter({ hasText: 'Porto Salgado' })).toContainText(/low … high law/)
+  await expect(page.getByTestId('hazard-caution')).toContainText('for training only')
+})
+
+test('the brief labels the energy in the air and at the surface, and shows the heat at the nearest sites', async ({ page }) => {
+  const id = await demoScenarioId(page, false)
+  await page.goto(`/brief/${id}?solution=s7-certain`)
+  await briefReady(page)
+  await expect(page.getByTestId('figure-energy')).toContainText('Energy at entry')
+  await expect(page.getByTestId('range-energy-entry')).toContainText(/Energy at entry.*\d+ Mt TNT/)
+  await expect(page.getByTestId('range-energy-air')).toContainText(/Deposited in the air.*\d.* Mt TNT/)
+  await expect(page.getByTestId('range-energy-surface')).toContainText(/Reaching the surface.*\d.* Mt TNT/)
+
+  // A fireball this size (no speed gate since hazard model 2) heats the nearest site, about 30 km away.
+  await page.getByTestId('tab-heat').click()
+  const heat = page.getByTestId('hazard-heat')
+  await expect(heat.getByTestId('heat-note')).toContainText(/Heat from the fireball/)
+  await expect(heat.getByTestId('heat-vento-largo')).toContainText(/[\d.]+ MJ\/m² \(5–95 %: /)
+  await expect(page.getByTestId('figure-heat')).toContainText(/MJ\/m²/)
+  await page.getByTestId('hazard-charts').scrollIntoViewIfNeeded()
+  await shot(page, 'brief-laptop-heat')
+  await page.getByTestId('tab-sites').click()
+  await expect(page.getByTestId('sites-table').getByRole('columnheader', { name: /Heat/ })).toBeVisible()
+  await expect(page.getByTestId('drill-banner').first()).toContainText('EXERCISE')
+})
+
+test('the sites editor gives each coastal site a shelf width beside its offshore depth and beach slope', async ({ page }) => {
+  const id = await demoScenarioId(page, false)
+  await page.goto(`/scenarios/${id}`)
+  await page.getByRole('tab', { name: /^Sites/ }).click()
+  const shelf = page.getByLabel('Shelf width (km, coastal only) of Porto Salgado')
+  await expect(shelf).toHaveValue('8')
+  await expect(shelf).toHaveAccessibleDescription(/Width of the continental shelf.*Empty: 10 km/)
+  await expect(page.getByLabel('Shelf width (km, coastal only) of Montalvor')).toHaveValue('')
+  await expect(page.getByTestId('sites-shore-help')).toContainText('Beach slope')
+  await shelf.fill('30')
+  await expect(page.getByTestId('unsaved')).toBeVisible()
+  await shot(page, 'scenario-editor-sites')
+})
+
 test('the brief on a projector in the dark theme', async ({ page }) => {
   await page.setViewportSize({ width: 1920, height: 1080 })
   await useTheme(page, 'dark')

@@ -1,4 +1,5 @@
 import type { Content, TableCell } from 'pdfmake/interfaces'
+import type { ThreatSummary } from '../../shared/geo/threat'
 import { durationText } from '../../shared/review/decisions'
 import { FINDING_KIND_LABELS, ITEM_STATUS_LABELS, POETE_LABELS, RATING_LABELS, RATINGS } from '../../shared/review/plan'
 import { pdfSafe } from '../../shared/review/pdftext'
@@ -85,11 +86,55 @@ function threatSection(d: R): Content[] {
   out.push(
     { svg: threatChartSvg(d.threat.map(s => ({ label: s.label.split(' — ')[0] ?? s.label, impactProbability: s.impactProbability, torino: s.torino }))), width: 515, options: SVG_OPTIONS, margin: [0, 4, 0, 6] } as Content,
     pdfTable(
-      ['Solution', 'Published (scenario)', 'Impact probability', 'Torino', 'Energy (median, 5–95 %)', 'Diameter', 'Tsunami'],
+      ['Solution', 'Published (scenario)', 'Impact probability', 'Torino', 'Energy at entry (median, 5–95 %)', 'Diameter', 'Tsunami'],
       d.threat.map(s => [s.label, pdfTime(s.publishedAt), `${s.probabilityText} (${s.odds})`, String(s.torino), s.energyText, s.diameterText, fmtPct(s.tsunamiProbability)]),
       ['*', 62, 62, 32, 80, 62, 38], { fontSize: 7.5 },
     ),
   )
+  if (d.hazard) out.push(...finalHazardPdf(d.hazard))
+  return out
+}
+
+/** The last solution's energies, tsunami band per coastal site (with the laws named) and heat. */
+function finalHazardPdf(h: ThreatSummary): Content[] {
+  const out: Content[] = [
+    { text: pt(`Figures of the last published solution, ${h.label}`), style: 'h2' },
+    { text: 'Every figure assumes the object strikes: a median with its 5–95 % range over the realisations.', style: 'muted',
+      margin: [0, 0, 0, 4] },
+    pdfTable(['Energy', 'Median (5–95 %)', 'What it is'], h.energies.map(e => [e.label, e.text, e.note]), [110, 150, '*']),
+    { text: pt(`Airbursts: ${h.airburstText} of impacts.`), style: 'para' },
+    { text: 'Tsunami at the coastal sites', style: 'h3' },
+    { text: pt(h.bandNote), style: 'para' },
+    { text: 'Each cell: the median, with the 5–95 % range in brackets (indicative).', style: 'muted', margin: [0, 0, 0, 2] },
+  ]
+  if (!h.coast.length) out.push({ text: 'No realisation sends a wave to a coastal site.', style: 'para' })
+  else if (h.coast.some(c => c.band)) {
+    out.push(pdfTable(
+      ['Site', 'Distance', 'Run-up, low law', 'Run-up, high law', 'Offshore wave, low law', 'Offshore wave, high law'],
+      h.coast.map(c => [
+        c.name, c.distanceText, c.band?.low.runUpText ?? c.runUpText, c.band?.high.runUpText ?? '—',
+        c.band?.low.amplitudeText ?? '—', c.band?.high.amplitudeText ?? '—',
+      ]),
+      ['*', 62, 78, 78, 78, 78], { fontSize: 7.5 },
+    ))
+  }
+  else {
+    out.push(pdfTable(['Site', 'Distance', 'Run-up (indicative)'], h.coast.map(c => [c.name, c.distanceText, c.runUpText]), ['*', 80, 160]))
+  }
+  if (h.laws.length) {
+    out.push({ text: 'The published source laws', style: 'muted', bold: true, margin: [0, 0, 0, 2] })
+    const law = (l: ThreatSummary['laws'][number]) => ({ text: pt(`${l.key === 'low' ? 'Low' : 'High'} law, ${l.name}: ${l.source}`),
+      style: 'muted' })
+    out.push({ ul: h.laws.map(law), margin: [0, 0, 0, 6] })
+  }
+  const cells = h.heat.length ? ' Thermal exposure: median (5–95 %).' : ''
+  out.push({ text: 'Heat at the sites', style: 'h3' }, { text: pt(`${h.heatText}${cells}`), style: 'para' })
+  if (h.heat.length) {
+    out.push(pdfTable(
+      ['Site', 'Thermal exposure', 'First-degree burns', 'Second-degree burns', 'Third-degree burns'],
+      h.heat.map(r => [r.name, r.thermalText, r.burn1, r.burn2, r.burn3]), ['*', 130, 70, 70, 70], { fontSize: 7.5 },
+    ))
+  }
   return out
 }
 

@@ -1,4 +1,4 @@
-import { blastRings, defaultView, loadAtlas, renderMapSvg, runUpClass } from '../../shared/geo'
+import { blastRings, defaultView, loadAtlas, renderMapSvg, runUpClass, threatSummary, type ThreatSummary } from '../../shared/geo'
 import type { Assessment } from '../../shared/hazard/types'
 import type { OrbitSolution } from '../../shared/hazard/schema'
 import type { SolutionPublishedData, StoredEvent } from '../../shared/live/types'
@@ -22,6 +22,12 @@ function threat(events: readonly StoredEvent[]) {
       energyText: h.text.energyMt, diameterText: h.text.diameterM, tsunamiProbability: h.tsunamiProbability, airburstProbability: h.airburstProbability,
     }
   })
+}
+
+/** The last published solution's hazard in words (energies, tsunami band with its laws, heat); null before any. */
+function finalHazard(published: readonly SolutionPublishedData[]): ThreatSummary | null {
+  const last = published.at(-1)
+  return last ? threatSummary(last.assessment, last.label) : null
 }
 
 /** The corridor map of the last published solution with the earlier corridors, as an SVG string (Plex fonts for the PDF). */
@@ -74,6 +80,7 @@ export async function reportData(exerciseId: string, opts: { map?: boolean; mapF
     },
     participants: participants(exerciseId, scenario),
     threat: threat(events),
+    hazard: finalHazard(published),
     map: opts.map ? await finalMapSvg(scenario, published, { fontFamily: opts.mapFont }) : null,
     timeline: timelineRows(events.filter(e => CONDENSED.has(e.type)), actors, scenario).map(r => ({ seq: r.seq, wallTime: r.wallTime, scenarioTime: r.scenarioTime, summary: r.summary, teams: r.teams })),
     eventCount: events.length,

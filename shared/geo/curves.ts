@@ -1,6 +1,7 @@
 /** Curves for the hazard charts, computed with the engine's pure laws at the median case. */
 import { overpressurePa } from '../hazard/blast'
 import { tsunamiAmplitudeAtM } from '../hazard/ocean'
+import type { TsunamiLawKey } from '../hazard/types'
 import type { MedianBlastCase } from './overlays'
 
 /** `n` distances from `fromKm` to `toKm`, evenly spaced on a log scale. */
@@ -15,9 +16,12 @@ export function overpressureCurve(basis: MedianBlastCase, fromKm = 1, toKm = 300
 }
 
 /**
- * Deep-water wave amplitude against distance for the median cavity (rim wave decaying as 1/r; Ward &
- * Asphaug 2000; Wünnemann et al. 2010 — indicative), [km, m] pairs. Before shoaling at the coast.
+ * Deep-water wave amplitude against distance for the median cavity under one published source law (rim
+ * amplitude decaying as 1/r: 'low' after Collins et al. 2005, 'high' after Ward & Asphaug 2000; see
+ * TSUNAMI_SOURCE_LAWS; indicative), [km, m] pairs. Before shoaling at the coast.
  */
-export function tsunamiCurve(cavityDiameterM: number, waterDepthM: number, fromKm = 1, toKm = 500, n = 80): Array<[number, number]> {
-  return logSpace(fromKm, toKm, n).map(km => [km, tsunamiAmplitudeAtM({ cavityDiameterM, waterDepthM, distanceM: km * 1000 })])
+export function tsunamiCurve(
+  cavityDiameterM: number, waterDepthM: number, fromKm = 1, toKm = 500, n = 80, law: TsunamiLawKey = 'low',
+): Array<[number, number]> {
+  return logSpace(fromKm, toKm, n).map(km => [km, tsunamiAmplitudeAtM({ cavityDiameterM, waterDepthM, distanceM: km * 1000, law })])
 }

@@ -1,4 +1,5 @@
-import type { Assessment } from '../hazard/types'
+import type { Assessment, SiteAssessment } from '../hazard/types'
+import { heatRows, heatSourceText } from '../geo/threat'
 import { findHazardFields, renderHazardFields } from '../scenario/fields'
 import type { Headline } from './types'
 import { DRILL } from './visibility'
@@ -15,8 +16,26 @@ export function assessmentHeadline(a: Assessment): Headline {
       impactProbability: fill(a, 'impactProbability'), odds: fill(a, 'impactProbability | odds'),
       torino: fill(a, 'torino'), palermo: fill(a, 'palermo'), diameterM: fill(a, 'diameterM'), energyMt: fill(a, 'energyMt'),
     },
+    ...(a.airEnergyMt ? { airEnergyMt: a.airEnergyMt } : {}),
+    surfaceEnergyMt: a.surfaceEnergyMt,
+    worstRunUp: worstRunUp(a),
+    heat: worstHeat(a),
     drill: DRILL,
   }
+}
+
+const topRunUp = (s: SiteAssessment) => Math.max(s.runUpM.p95, s.tsunamiBand?.high.runUpM.p95 ?? 0)
+
+function worstRunUp(a: Assessment): Headline['worstRunUp'] {
+  const wet = a.sites.filter(s => s.coastal !== false && topRunUp(s) > 0)
+  if (!wet.length) return null
+  const w = wet.reduce((m, s) => (topRunUp(s) > topRunUp(m) ? s : m))
+  return { site: w.name, runUpM: w.runUpM, ...(w.tsunamiBand ? { lowLawM: w.tsunamiBand.low.runUpM.p50, highLawM: w.tsunamiBand.high.runUpM.p50 } : {}) }
+}
+
+function worstHeat(a: Assessment): Headline['heat'] {
+  const w = heatRows(a)[0]
+  return w ? { site: w.name, thermalMJM2: w.thermalMJM2, burn2: w.burn2, source: heatSourceText(a) } : null
 }
 
 /** What a hazard field shows while no orbit solution has been published. */

@@ -52,6 +52,13 @@ export interface Headline {
   diameterM: Percentiles
   energyMt: Percentiles
   text: { impactProbability: string; odds: string; torino: string; palermo: string; diameterM: string; energyMt: string }
+  /** Energy deposited in the air and reaching the surface, Mt (absent from records of earlier hazard models). */
+  airEnergyMt?: Percentiles
+  surfaceEnergyMt?: Percentiles
+  /** The coastal site with the highest run-up, m: the laws mixed, and each published source law's median when the model gives them. */
+  worstRunUp?: { site: string; runUpM: Percentiles; lowLawM?: number; highLawM?: number } | null
+  /** The site with the most heat (fireball or airburst flash): thermal exposure, MJ/m², and the chance of second-degree burns. */
+  heat?: { site: string; thermalMJM2: Percentiles; burn2: number; source: string } | null
   drill: DrillFlag
 }
 

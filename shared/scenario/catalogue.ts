@@ -58,7 +58,7 @@ interface Meta { label: string; dimension: Dimension; unit: string; whenMissing?
 const IMPACTOR: Record<PercentileKey<Assessment>, Meta> = {
   diameterM: { label: 'Diameter', dimension: 'length', unit: 'm' },
   massKg: { label: 'Mass', dimension: 'mass', unit: 'kg' },
-  energyMt: { label: 'Impact energy (TNT equivalent)', dimension: 'energy', unit: 'Mt' },
+  energyMt: { label: 'Energy at entry (TNT equivalent)', dimension: 'energy', unit: 'Mt' },
   burstAltitudeKm: { label: 'Airburst altitude', dimension: 'length', unit: 'km', whenMissing: 'n/a (no airburst among the samples)' },
   surfaceEnergyMt: { label: 'Energy reaching the surface', dimension: 'energy', unit: 'Mt' },
   airEnergyMt: { label: 'Energy deposited in the air', dimension: 'energy', unit: 'Mt', whenMissing: 'n/a (model version without this figure)' },
@@ -80,7 +80,7 @@ const SITE_DISTRIBUTIONS: Record<PercentileKey<SiteAssessment>, Meta> = {
   distanceKm: { label: 'Distance from the impact point', dimension: 'length', unit: 'km' },
   overpressureKPa: { label: 'Peak blast overpressure', dimension: 'pressure', unit: 'kPa' },
   windMS: { label: 'Peak blast wind', dimension: 'speed', unit: 'm/s' },
-  thermalMJM2: { label: 'Thermal exposure', dimension: 'thermal', unit: 'MJ/m2' },
+  thermalMJM2: { label: 'Thermal exposure (fireball or airburst flash)', dimension: 'thermal', unit: 'MJ/m2' },
   seismicMagnitude: { label: 'Effective seismic magnitude', dimension: 'magnitude', unit: '' },
   tsunamiAmplitudeM: { label: 'Tsunami amplitude offshore (indicative)', dimension: 'length', unit: 'm' },
   tsunamiArrivalMin: { label: 'First tsunami arrival after impact (larger waves follow)', dimension: 'time', unit: 'min' },

@@ -43,6 +43,9 @@ describe('renderHazardFields', () => {
     ['{{ site.port-a.overpressureKPa.p95 | psi }}', '1 psi'],
     ['{{ site.port-a.windMS.p50 | km/h }}', '26 km/h'],
     ['{{ site.port-a.distanceKm.p50 }}', '44 km'],
+    // The fixture is shaped like an assessment of an earlier model version: no band, no air energy.
+    ['{{ site.port-a.tsunamiBand.high.runUpM.p50 }}', 'n/a (model version without the tsunami band)'],
+    ['{{ airEnergyMt }}', 'n/a (model version without this figure)'],
   ])('renders %s as "%s"', (template, expected) => {
     expect(renderHazardFields(template, a)).toBe(expected)
   })
@@ -56,6 +59,21 @@ describe('renderHazardFields', () => {
     expect(renderHazardFields('\\{{ energyMt }} is {{ energyMt.p50 }}', a)).toBe('{{ energyMt }} is 2.1 Mt')
     expect(renderHazardFields('{{ site.gone.runUpM }}', a)).toBe('[no figures for site "gone"]')
     expect(renderHazardFields('{{ nope }}', a)).toBe('[unknown hazard field "nope"]')
+  })
+
+  it('quotes each law of the tsunami band and the energy deposited in the air when the engine gives them', () => {
+    const b = assessmentFixture()
+    const pc = (p5: number, p50: number, p95: number) => ({ p5, p50, p95 })
+    b.sites[0]!.tsunamiBand = {
+      low: { amplitudeM: pc(0.2, 0.4, 0.9), runUpM: pc(0.5, 1.1, 2.3) },
+      high: { amplitudeM: pc(1, 2, 4.5), runUpM: pc(2.4, 5.2, 11) },
+    }
+    b.airEnergyMt = pc(0.5, 1.6, 3.9)
+    expect(renderHazardFields('{{ site.port-a.tsunamiBand.low.runUpM.p50 }} to {{ site.port-a.tsunamiBand.high.runUpM.p50 }}', b))
+      .toBe('1.1 m to 5.2 m')
+    expect(renderHazardFields('{{ site.port-a.tsunamiBand.high.amplitudeM }}', b)).toBe('2 m (5–95 %: 1–4.5 m)')
+    expect(renderHazardFields('{{ site.port-a.tsunamiBand.low.runUpM.range }}', b)).toBe('0.5–2.3 m')
+    expect(renderHazardFields('{{ airEnergyMt.p50 | kt }}', b)).toBe('1,600 kt')
   })
 
   it('renders every catalogue field for a site without leaving braces behind', () => {
