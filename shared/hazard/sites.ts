@@ -3,7 +3,7 @@ import { THRESHOLDS, type SiteAssessment, type ThresholdKey } from './types'
 import type { SampleSet } from './sample'
 import { FLAG_TSUNAMI, REC } from './sample'
 import { peakWindMS, BLAST } from './blast'
-import { visibleFraction } from './thermal'
+import { visibleFractionOfRatio } from './thermal'
 import { effectiveMagnitude } from './seismic'
 import { OCEAN, breakingLimit, longWaveSpeedMS, shoreProfile, runUpOnProfileM, toeHeightForRunUpM, type ShoreProfile } from './ocean'
 import { orderStats, toPercentiles } from './stats'
@@ -161,7 +161,7 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
       const hidden = (1 - dot) * EARTH_RADIUS_M - zb
       const rf = Rc[o + O_RF]!
       if (hidden < rf) {
-        const phi = visibleFraction(hidden, rf) * K / (r * r + zb * zb)
+        const phi = visibleFractionOfRatio(hidden / rf) * K / (r * r + zb * zb)
         const rel = phi * Rc[o + O_BURN]!
         c = 0
         while (c < nTv && rel >= tv[c]!) c++

@@ -54,6 +54,20 @@ export function visibleFraction(hiddenHeightM: number, fireballRadiusM: number):
   return (2 / Math.PI) * (d - q * Math.sin(d))
 }
 
+/** `visibleFraction` tabulated on q = hidden / R_f in [0, 1] (the Monte Carlo's site loop; absolute error below 1e-6). */
+const VF_STEPS = 4096
+const VF_TABLE = Float64Array.from({ length: VF_STEPS + 2 }, (_, k) => visibleFraction(Math.min(k, VF_STEPS) / VF_STEPS, 1))
+/**
+ * Fraction of the fireball above the horizon from the table (linear interpolation), for q = hidden / R_f.
+ * Source: as `visibleFraction`.
+ */
+export function visibleFractionOfRatio(q: number): number {
+  if (q <= 0) return 1
+  if (q >= 1) return 0
+  const u = q * VF_STEPS, j = u | 0
+  return VF_TABLE[j]! + (u - j) * (VF_TABLE[j + 1]! - VF_TABLE[j]!)
+}
+
 /**
  * Thermal exposure at a ground range, `Phi = f I / (r^2 + z^2)`, I from `radiantIntensityJSr`, f the visible
  * fraction of a fireball of radius 0.002 E^(1/3) over a curved Earth. Sources: Collins et al. 2005, eqs. 30–35

@@ -35,3 +35,15 @@ describe('ground shaking (Collins 2005 eqs. 40–41)', () => {
     expect(effectiveMagnitude(7, 2000)).toBeLessThan(effectiveMagnitude(7, 700))
   })
 })
+
+describe('the tabulated visible fraction of the site loop', () => {
+  it('agrees with the exact form within 1e-6 everywhere on 0..1 (self-consistency)', async () => {
+    const { visibleFractionOfRatio } = await import('../../../shared/hazard/thermal')
+    for (let k = 0; k <= 100_000; k++) {
+      const q = k / 100_000
+      expect(Math.abs(visibleFractionOfRatio(q) - visibleFraction(q, 1))).toBeLessThan(1e-6)
+    }
+    expect(visibleFractionOfRatio(-3)).toBe(1)
+    expect(visibleFractionOfRatio(2)).toBe(0)
+  })
+})
