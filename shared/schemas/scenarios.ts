@@ -30,7 +30,8 @@ export const previewSchema = z.object({
   solution: orbitSolutionSchema,
   sites: z.array(siteSchema).max(200).default([]),
   samples: z.number().int().min(500).max(20_000).default(5000),
-  seed: z.number().int().min(0).max(2 ** 31).default(1),
+  // The engine takes any safe integer and uses all of it.
+  seed: z.number().int().min(-Number.MAX_SAFE_INTEGER).max(Number.MAX_SAFE_INTEGER).default(1),
 })
 
 export const memberSchema = z.object({
