@@ -31,7 +31,8 @@ describe('the headline of a publication', () => {
     a.airburstProbability = 1
     a.sites[0]!.thermalMJM2 = p(0.1, 0.3, 0.5)
     a.sites[0]!.exceedance.burn2 = 0.4
-    expect(assessmentHeadline(a).heat).toEqual({ site: 'Porto Salgado', thermalMJM2: p(0.1, 0.3, 0.5), burn2: 0.4, source: 'the airburst flash' })
+    expect(assessmentHeadline(a).heat)
+      .toEqual({ site: 'Porto Salgado', thermalMJM2: p(0.1, 0.3, 0.5), burn2: 0.4, source: 'the airburst flash' })
   })
 
   it('splits the energy into air and surface only when the model gives the air part', () => {
