@@ -105,7 +105,7 @@ test('a facilitator reads the threat brief, moves through the solutions and zoom
   await shot(page, 'brief-laptop-light-charts')
 })
 
-test('the brief shows the tsunami band of each coastal site under both published source laws, named with their sources', async ({ page }) => {
+test('the brief shows each coastal site\'s tsunami band under both published source laws, named with their sources', async ({ page }) => {
   const id = await demoScenarioId(page, false)
   // Solution 7: a 160 m stony body strikes the sea some 50 km off the coast.
   await page.goto(`/brief/${id}?solution=s7-certain`)

@@ -30,7 +30,8 @@ function worstRunUp(a: Assessment): Headline['worstRunUp'] {
   const wet = a.sites.filter(s => s.coastal !== false && topRunUp(s) > 0)
   if (!wet.length) return null
   const w = wet.reduce((m, s) => (topRunUp(s) > topRunUp(m) ? s : m))
-  return { site: w.name, runUpM: w.runUpM, ...(w.tsunamiBand ? { lowLawM: w.tsunamiBand.low.runUpM.p50, highLawM: w.tsunamiBand.high.runUpM.p50 } : {}) }
+  const band = w.tsunamiBand
+  return { site: w.name, runUpM: w.runUpM, ...(band ? { lowLawM: band.low.runUpM.p50, highLawM: band.high.runUpM.p50 } : {}) }
 }
 
 function worstHeat(a: Assessment): Headline['heat'] {

@@ -6,6 +6,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { as, baseUrl, Client } from './helpers'
 import { closeSockets } from './live-helpers'
 import { playReviewDrill, type ReviewDrill } from './review-drill'
+import { rangeText } from '../../shared/geo/figures'
+import { compactText } from '../../shared/geo/threat'
+import type { Assessment } from '../../shared/hazard/types'
 
 let d: ReviewDrill
 let dir: string
@@ -79,6 +82,12 @@ describe('the after-action report PDF', () => {
     expect(text).toContain(`impact probability of ${s7.headline.text.impactProbability}`)
     expect(text).toContain('Solution 7 — impact certain')
     expect(text).toContain('Solution 1 — discovery orbit, 3-night arc')
+    // The last solution's energies by where they go, the tsunami band under both published laws, and the heat.
+    for (const words of ['Energy at entry', 'Reaching the surface', 'Tsunami at the coastal sites', 'Run-up, low law', 'Run-up, high law',
+      'spread between the published tsunami source laws is wide', 'Ward & Asphaug 2000', 'Heat at the sites']) expect(text).toContain(words)
+    const porto = (s7.assessment as Assessment).sites.find(s => s.siteId === 'porto-salgado')!
+    expect(text).toContain(`Porto Salgado ${rangeText(porto.distanceKm, 'km')} ${compactText(porto.tsunamiBand!.low.runUpM, 'm')} `
+      + `${compactText(porto.tsunamiBand!.high.runUpM, 'm')}`)
     // Inject titles, decisions and their timing.
     expect(text).toContain('Do we tell civil protection now?')
     expect(text).toContain('Formal notification under the hazard plan')
