@@ -1,5 +1,6 @@
 import { dirname, resolve } from 'node:path'
 import fsDriver from 'unstorage/drivers/fs'
+import { seedDemo } from '~~/server/library'
 
 // Applies migrations before the first request, mounts attachment storage, then seeds the demo when asked to.
 export default defineNitroPlugin(async () => {

@@ -1,3 +1,5 @@
+import { scheduleIfHolder, stopScheduling } from '~~/server/live'
+
 // The inject scheduler: every SCHEDULER_INTERVAL_MS it releases what fell due in running exercises.
 // Several processes may share the database: only the holder of the scheduler lease (a row in
 // SQLite, renewed while it runs, taken over after it expires or its process dies) schedules.

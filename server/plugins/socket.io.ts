@@ -5,9 +5,10 @@ import { createAdapter } from '@socket.io/redis-adapter'
 import { Redis } from 'ioredis'
 import type { Socket } from 'socket.io'
 import { and, eq, gte, lte, min } from 'drizzle-orm'
-import { liveAuthSchema } from '../../shared/schemas/live'
-import { rooms } from '../../shared/live/visibility'
-import type { LiveReady, LiveView } from '../../shared/live/types'
+import { liveAuthSchema } from '#shared/schemas/live'
+import { rooms } from '#shared/live/visibility'
+import type { LiveReady, LiveView } from '#shared/live/types'
+import { clockNow, findWallToken, latestSeq, liveExercise, setIO, userFromHandshake, viewOf, visibleEvents } from '~~/server/live'
 
 interface LiveSocketData { exerciseId: string; view: LiveView; lastSeq: number; wallTokenId?: string }
 

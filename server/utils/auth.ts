@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import type { H3Event } from 'h3'
-import type { ExerciseRole } from '../../shared/utils/roles'
-import type { Membership, User } from '../../shared/types/db'
+import type { ExerciseRole } from '#shared/utils/roles'
+import type { Membership, User } from '#shared/types/db'
 
 /** The signed-in, active user, read fresh from the database. Anonymous or disabled → 401. */
 export async function requireUser(event: H3Event): Promise<User> {

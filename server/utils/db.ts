@@ -8,6 +8,8 @@ import * as schema from '../db/schema'
 
 export { schema }
 export type DB = BetterSQLite3Database<typeof schema>
+/** A Drizzle transaction on the one SQLite connection. */
+export type Tx = Parameters<Parameters<DB['transaction']>[0]>[0]
 
 let sqlite: Database.Database | undefined
 let db: DB | undefined

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm'
-import { idParamSchema } from '../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { getExercise } from '~~/server/library'
 
 // One exercise with its members and teams. The frozen scenario itself is not sent here: players
 // must never see expected actions, and each desk reads only what its role may.

@@ -1,4 +1,5 @@
-import { eventsQuerySchema } from '../../../../shared/schemas/live'
+import { eventsQuerySchema } from '#shared/schemas/live'
+import { latestSeq, requireLiveRole, visibleEvents } from '~~/server/live'
 
 // The event record after `since`, as the caller may see it (the same sanitising as the socket).
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,6 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { getExercise } from '~~/server/library'
+import { downloadHeaders, fileStem, requireReviewer } from '~~/server/review'
 
 // Printable inject cards, one page per inject of the frozen scenario (no expected actions).
 export default defineEventHandler(async (event) => {

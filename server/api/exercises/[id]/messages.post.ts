@@ -1,5 +1,6 @@
-import { messageSchema } from '../../../../shared/schemas/live'
-import { sanitise } from '../../../../shared/live/visibility'
+import { messageSchema } from '#shared/schemas/live'
+import { sanitise } from '#shared/live/visibility'
+import { requireLiveRole, sendMessage } from '~~/server/live'
 
 // The facilitator sends an ad-hoc message to some teams; the same idempotency key sends it once.
 export default defineEventHandler(async (event) => {

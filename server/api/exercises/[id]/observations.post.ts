@@ -1,5 +1,6 @@
-import { observationSchema } from '../../../../shared/schemas/live'
-import { sanitise } from '../../../../shared/live/visibility'
+import { observationSchema } from '#shared/schemas/live'
+import { sanitise } from '#shared/live/visibility'
+import { recordObservation, requireLiveRole } from '~~/server/live'
 
 // An evaluator (or the facilitator) writes a timestamped observation.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { downloadHeaders, fileStem, requireReviewer } from '~~/server/review'
 
 // The after-action report as PDF (analyst and facilitator; admins look in).
 export default defineEventHandler(async (event) => {

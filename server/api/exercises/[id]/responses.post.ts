@@ -1,5 +1,6 @@
-import { responseSchema } from '../../../../shared/schemas/live'
-import { sanitise } from '../../../../shared/live/visibility'
+import { responseSchema } from '#shared/schemas/live'
+import { sanitise } from '#shared/live/visibility'
+import { requireLiveRole, submitResponse } from '~~/server/live'
 
 // A player answers an inject released to their team; the same idempotency key answers once.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,6 @@
-import { scoreSchema } from '../../../../shared/schemas/live'
-import { sanitise } from '../../../../shared/live/visibility'
+import { scoreSchema } from '#shared/schemas/live'
+import { sanitise } from '#shared/live/visibility'
+import { recordScore, requireLiveRole } from '~~/server/live'
 
 // An evaluator (or the facilitator) rates a critical task P, S, M or U.
 export default defineEventHandler(async (event) => {

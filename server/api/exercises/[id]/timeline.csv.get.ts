@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { downloadHeaders, exerciseTimeline, fileStem, requireReviewer, timelineCsv } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)

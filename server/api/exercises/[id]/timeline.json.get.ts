@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
-import { DRILL_CAUTION, DRILL_MARKING } from '../../../../shared/utils/drill'
+import { idParamSchema } from '#shared/schemas/auth'
+import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
+import { downloadHeaders, exerciseTimeline, fileStem, requireReviewer } from '~~/server/review'
 
 // The record itself (every event with its full payload) plus the readable rows.
 export default defineEventHandler(async (event) => {

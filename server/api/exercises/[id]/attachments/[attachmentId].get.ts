@@ -1,5 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { attachmentParams } from '../../../../../shared/schemas/scenarios'
+import { attachmentParams } from '#shared/schemas/scenarios'
+import { sendAttachment } from '~~/server/library'
 
 // An attachment of the exercise's frozen scenario, for the exercise's members only.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { requireReviewReader, reviewFeedback } from '~~/server/review'
 
 // Feedback collected into the review: the summary by role and team, and who was asked and who answered.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { feedbackSchema } from '../../../../../shared/schemas/review'
+import { idParamSchema } from '#shared/schemas/auth'
+import { feedbackSchema } from '#shared/schemas/review'
+import { submitFeedback } from '~~/server/review'
 
 // Any member sends (or replaces) their own feedback on the drill.
 export default defineEventHandler(async (event) => {

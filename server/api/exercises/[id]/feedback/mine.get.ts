@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { myFeedback } from '~~/server/review'
 
 // The feedback form for the signed-in member: questions and their earlier answers.
 export default defineEventHandler(async (event) => {

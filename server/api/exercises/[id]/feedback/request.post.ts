@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { feedbackRequestSchema } from '../../../../../shared/schemas/review'
+import { idParamSchema } from '#shared/schemas/auth'
+import { feedbackRequestSchema } from '#shared/schemas/review'
+import { requestFeedback, requireReviewWriter } from '~~/server/review'
 
 // E-mails the feedback form to chosen members (or all but the sender) once the drill has ended.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { findingParamsSchema } from '../../../../../shared/schemas/review'
+import { findingParamsSchema } from '#shared/schemas/review'
+import { deleteFinding, requireReviewWriter } from '~~/server/review'
 
 // Deleting an area for improvement keeps its corrective actions in the plan (unlinked).
 export default defineEventHandler(async (event) => {

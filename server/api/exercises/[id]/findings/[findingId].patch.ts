@@ -1,4 +1,5 @@
-import { findingParamsSchema, findingPatchSchema } from '../../../../../shared/schemas/review'
+import { findingParamsSchema, findingPatchSchema } from '#shared/schemas/review'
+import { requireReviewWriter, updateFinding } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)

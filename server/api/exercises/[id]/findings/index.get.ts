@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { listFindings, requireReviewReader } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)

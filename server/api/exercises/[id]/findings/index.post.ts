@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { findingSchema } from '../../../../../shared/schemas/review'
+import { idParamSchema } from '#shared/schemas/auth'
+import { findingSchema } from '#shared/schemas/review'
+import { createFinding, requireReviewWriter } from '~~/server/review'
 
 // A strength or an area for improvement, tied to an objective and one of its capabilities.
 export default defineEventHandler(async (event) => {

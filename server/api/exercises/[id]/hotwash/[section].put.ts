@@ -1,4 +1,5 @@
-import { hotwashParamsSchema, hotwashSchema } from '../../../../../shared/schemas/review'
+import { hotwashParamsSchema, hotwashSchema } from '#shared/schemas/review'
+import { requireReviewWriter, saveHotwash } from '~~/server/review'
 
 // Saves one hotwash section; a stale revision → 409 with the current text.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { improvementParamsSchema } from '../../../../../shared/schemas/review'
+import { improvementParamsSchema } from '#shared/schemas/review'
+import { deleteImprovement, requireReviewWriter } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)

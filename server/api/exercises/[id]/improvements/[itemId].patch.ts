@@ -1,4 +1,5 @@
-import { improvementParamsSchema, improvementPatchSchema } from '../../../../../shared/schemas/review'
+import { improvementParamsSchema, improvementPatchSchema } from '#shared/schemas/review'
+import { requireReviewWriter, updateImprovement } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)

@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { improvementSchema } from '../../../../../shared/schemas/review'
+import { idParamSchema } from '#shared/schemas/auth'
+import { improvementSchema } from '#shared/schemas/review'
+import { createImprovement, requireReviewWriter } from '~~/server/review'
 
 // A corrective action of the improvement plan: capability element (POETE), owner, dates and status.
 export default defineEventHandler(async (event) => {

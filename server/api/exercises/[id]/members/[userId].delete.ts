@@ -1,5 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { exerciseMemberParams } from '../../../../../shared/schemas/scenarios'
+import { exerciseMemberParams } from '#shared/schemas/scenarios'
+import { assertFacilitatorRemains } from '~~/server/library'
 
 // The facilitator removes a member; the last facilitator cannot be removed.
 export default defineEventHandler(async (event) => {

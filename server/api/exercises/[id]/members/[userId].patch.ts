@@ -1,5 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { exerciseMemberParams, memberPatchSchema } from '../../../../../shared/schemas/scenarios'
+import { exerciseMemberParams, memberPatchSchema } from '#shared/schemas/scenarios'
+import { assertFacilitatorRemains, checkTeam, getExercise } from '~~/server/library'
 
 // The facilitator changes a member's role or team.
 export default defineEventHandler(async (event) => {

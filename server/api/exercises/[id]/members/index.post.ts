@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { memberSchema } from '../../../../../shared/schemas/scenarios'
+import { idParamSchema } from '#shared/schemas/auth'
+import { memberSchema } from '#shared/schemas/scenarios'
+import { checkTeam, getExercise } from '~~/server/library'
 
 // The facilitator adds a person (who already has an account) by e-mail, with a role and team.
 export default defineEventHandler(async (event) => {

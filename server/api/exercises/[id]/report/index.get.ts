@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { requireReviewer } from '~~/server/review'
 
 // The after-action report's content for the printable page (the PDF is drawn from the same data).
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { reportSendSchema } from '../../../../../shared/schemas/review'
+import { idParamSchema } from '#shared/schemas/auth'
+import { reportSendSchema } from '#shared/schemas/review'
+import { requireReviewWriter } from '~~/server/review'
 
 // Sends the after-action report (PDF attached) to chosen members of the exercise.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { requireReviewReader, reviewDecisions } from '~~/server/review'
 
 // Decisions with the time each team took to answer (release to first response, against the deadline), per team and per phase.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { requireReviewReader, reviewOverview } from '~~/server/review'
 
 // The review desk frame: exercise, scenario parts, members, the whole timeline with filter facets, permissions.
 export default defineEventHandler(async (event) => {

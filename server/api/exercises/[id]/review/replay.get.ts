@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { replayRecord, requireReviewReader } from '~~/server/review'
 
 // The record with audiences for the replay (assessments left out; see review/solutions/[key]).
 export default defineEventHandler(async (event) => {

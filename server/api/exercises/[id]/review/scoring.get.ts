@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { requireReviewReader, reviewScoring } from '~~/server/review'
 
 // Evaluators' ratings by objective and capability, observations, Cohen's kappa per pair of evaluators and their disagreements.
 export default defineEventHandler(async (event) => {

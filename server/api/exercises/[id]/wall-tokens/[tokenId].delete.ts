@@ -1,4 +1,5 @@
-import { wallTokenParamsSchema } from '../../../../../shared/schemas/live'
+import { wallTokenParamsSchema } from '#shared/schemas/live'
+import { requireLiveRole, revokeWallToken } from '~~/server/live'
 
 // The facilitator revokes a wall link; walls using it are disconnected.
 export default defineEventHandler(async (event) => {

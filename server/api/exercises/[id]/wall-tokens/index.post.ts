@@ -1,4 +1,5 @@
-import { wallTokenSchema } from '../../../../../shared/schemas/live'
+import { wallTokenSchema } from '#shared/schemas/live'
+import { createWallToken, liveExercise, requireLiveRole } from '~~/server/live'
 
 // The facilitator makes a share link for the wall view; the token is shown this once.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { injectParamsSchema } from '../../../../../../shared/schemas/live'
+import { injectParamsSchema } from '#shared/schemas/live'
+import { holdInject, requireLiveRole } from '~~/server/live'
 
 // The facilitator holds an inject so the scheduler skips it (release it by hand later).
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,6 @@
-import { injectParamsSchema } from '../../../../../../shared/schemas/live'
-import { sanitise } from '../../../../../../shared/live/visibility'
+import { injectParamsSchema } from '#shared/schemas/live'
+import { sanitise } from '#shared/live/visibility'
+import { releaseInject, requireLiveRole } from '~~/server/live'
 
 // The facilitator releases an inject now (early, held or contingency); once only, again → 409.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { solutionReviewParamsSchema } from '../../../../../../shared/schemas/review'
+import { solutionReviewParamsSchema } from '#shared/schemas/review'
+import { publishedSolution, requireReviewReader } from '~~/server/review'
 
 // A published solution with its stored assessment, for the replay's hazard brief.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,6 @@
-import { solutionParamsSchema } from '../../../../../../shared/schemas/live'
-import { sanitise } from '../../../../../../shared/live/visibility'
+import { solutionParamsSchema } from '#shared/schemas/live'
+import { sanitise } from '#shared/live/visibility'
+import { publishSolution, requireLiveRole } from '~~/server/live'
 
 // The facilitator publishes an orbit solution now (the scheduler does at its release time); once only.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,7 @@
 import { and, eq } from 'drizzle-orm'
-import type { ExerciseRole } from '../../shared/utils/roles'
+import type { ExerciseRole } from '#shared/utils/roles'
+import { startExercise } from './exercises'
+import { scenariosDir, seedScenarios } from './scenarios'
 
 export const DEMO_ACCOUNTS: Array<{ email: string; name: string; systemRole: 'admin' | 'member'; role?: ExerciseRole; teamKey?: string; canAuthor?: boolean }> = [
   { email: 'admin@brinkwater.test', name: 'Avery Holm (admin)', systemRole: 'admin' },

@@ -1,6 +1,7 @@
 import type { H3Event } from 'h3'
-import type { ExerciseRole } from '../../shared/utils/roles'
-import { idParamSchema } from '../../shared/schemas/auth'
+import type { ExerciseRole } from '#shared/utils/roles'
+import { idParamSchema } from '#shared/schemas/auth'
+import { viewOf } from './record'
 
 /**
  * The guard of the live exercise routes, in the house order: signed in (401) → a valid exercise id
