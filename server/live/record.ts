@@ -3,7 +3,6 @@ import type { SQL } from 'drizzle-orm'
 import { scenarioTimeAt, clockBounds, type ClockBounds } from '#shared/live/clock'
 import { canSee, rooms, sanitise, wallTypes } from '#shared/live/visibility'
 import type { Audience, ClockState, EventDataMap, LiveEvent, LiveEventType, LiveView, StoredEvent } from '#shared/live/types'
-import type { Membership } from '#shared/types/db'
 import { readClock } from './clock'
 import { useIO } from './realtime'
 import type { LiveExercise } from './types'
@@ -38,14 +37,6 @@ export function liveExercise(db: DB | Tx, exerciseId: string): LiveExercise {
   if (!exercise) throw notFound('No such exercise.')
   if (!exercise.scenario) throw conflict('This exercise has no scenario to play.')
   return exercise as LiveExercise
-}
-
-/** The reader view of a membership; an admin without a drill role reads as an evaluator. */
-export function viewOf(membership: Pick<Membership, 'role' | 'teamKey'> | null): LiveView {
-  if (!membership) return { kind: 'evaluator' }
-  if (membership.role === 'facilitator') return { kind: 'control' }
-  if (membership.role === 'player') return { kind: 'player', teamKey: membership.teamKey ?? '' }
-  return { kind: 'evaluator' }
 }
 
 /** The SQL condition for the events a view may read (the same rule as `canSee`). */

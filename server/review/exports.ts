@@ -9,11 +9,6 @@ import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
 import { getExercise } from '../library'
 import { storedEvents } from '../live'
 
-/** Exports are for the exercise's analyst and facilitator (admins may look in); others 403/404. */
-export async function requireReviewer(event: H3Event, exerciseId: string) {
-  return requireExerciseRole(event, exerciseId, ['facilitator', 'analyst'], { allowAdmin: true })
-}
-
 /** The whole timeline of an exercise (every event of its record) as rows. */
 export function exerciseTimeline(exerciseId: string) {
   const exercise = getExercise(exerciseId)

@@ -1,10 +1,7 @@
-import { idParamSchema } from '#shared/schemas/auth'
-import { replayRecord, requireReviewReader } from '~~/server/review'
+import { replayRecord } from '~~/server/review'
 
 // The record with audiences for the replay (assessments left out; see review/solutions/[key]).
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewReader(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.read')
   return replayRecord(id)
 })
