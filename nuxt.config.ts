@@ -26,7 +26,7 @@ export default defineNuxtConfig({
     attachmentsDir: '',
     // Public address used in e-mailed links; NUXT_APP_URL overrides.
     appUrl: 'http://localhost:3000',
-    // Seed the demo accounts, scenario and exercise at start (NUXT_SEED_DEMO=1).
+    // Seed the demo accounts, scenario and exercise at start (NUXT_SEED_DEMO=1), password NUXT_DEMO_PASSWORD.
     seedDemo: false,
     demoPassword: 'brinkwater-demo',
     smtp: {
@@ -45,10 +45,17 @@ export default defineNuxtConfig({
     session: {
       name: 'brinkwater-session',
       maxAge: 60 * 60 * 12,
-      // Secure only behind HTTPS: NUXT_SECURE_COOKIES=1 or an https NUXT_APP_URL turns it on at start
-      // (server/middleware/01.security.ts); NUXT_SESSION_COOKIE_SECURE=true sets it directly.
+      // Secure only behind HTTPS: secureCookies (below) turns it on for every request (server/plugins/05.security.ts);
+      // NUXT_SESSION_COOKIE_SECURE=true sets it directly.
       cookie: { sameSite: 'lax', httpOnly: true, secure: false },
     },
+    // Served over HTTPS (NUXT_SECURE_COOKIES=1, or an https NUXT_APP_URL): the session cookie is marked Secure.
+    secureCookies: false,
+    // Behind a reverse proxy (NUXT_TRUST_PROXY=1): client address and host come from X-Forwarded-For / -Host.
+    trustProxy: false,
+    // The inject scheduler's pass interval and the lease that lets one process of several run it.
+    schedulerIntervalMs: 250,
+    schedulerLeaseMs: 3000,
     // Redis for Socket.IO across several processes (NUXT_REDIS_URL, e.g. redis://127.0.0.1:6379); empty: one process.
     redisUrl: '',
   },

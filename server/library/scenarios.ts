@@ -135,7 +135,7 @@ export function duplicateScenario(row: ScenarioRow, user: User): ScenarioRow {
 }
 
 export function scenariosDir(): string {
-  return resolve(process.env.NUXT_SCENARIOS_DIR || useRuntimeConfig().scenariosDir)
+  return serverConfig().scenariosDir
 }
 
 /**

@@ -19,7 +19,7 @@ export const DEMO_EXERCISE_TITLE = 'Demo drill — Gannet ocean impact off the W
 /** Creates the demo accounts and the demo exercise; running it again changes nothing. */
 export async function seedDemo(): Promise<void> {
   const db = useDB()
-  const password = process.env.DEMO_PASSWORD || useRuntimeConfig().demoPassword
+  const password = serverConfig().demoPassword
   const hash = await hashPassword(password)
   const ids = new Map<string, string>()
   for (const a of DEMO_ACCOUNTS) {

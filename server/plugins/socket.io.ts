@@ -61,7 +61,7 @@ function joinLive(socket: Socket, live: LiveSocketData): void {
  * reaches the sockets connected to the others through Redis pub/sub (@socket.io/redis-adapter).
  */
 function attachRedisAdapter(io: Server): { close: () => Promise<void> } | null {
-  const url = process.env.NUXT_REDIS_URL || String(useRuntimeConfig().redisUrl || '')
+  const url = serverConfig().redisUrl
   if (!url) return null
   const pub = new Redis(url, { maxRetriesPerRequest: null })
   const sub = pub.duplicate()
