@@ -5,6 +5,7 @@ import { parseScenarioYaml, validateScenario } from '#shared/scenario'
 import type { Scenario } from '#shared/scenario'
 import type { ScenarioIssue } from '#shared/scenario/io'
 import type { ScenarioRow, User } from '#shared/types/db'
+import { nextFreeKey } from '#shared/utils/keys'
 import { putBlob, sniffContentType } from './attachments'
 
 /** A 400 listing each problem of a scenario with its path (and line and column for a file). */
@@ -38,10 +39,9 @@ export function getScenarioRow(id: string): ScenarioRow {
 /** A key not yet in the library: `base`, else `base-2`, `base-3`, … */
 export function freeKey(base: string): string {
   const stem = base.replace(/-\d+$/, '').slice(0, 56) || 'scenario'
-  const taken = new Set(useDB().select({ key: schema.scenarios.key }).from(schema.scenarios)
-    .where(or(eq(schema.scenarios.key, base), like(schema.scenarios.key, `${stem}%`))).all().map(r => r.key))
-  if (!taken.has(base)) return base
-  for (let n = 2; ; n++) if (!taken.has(`${stem}-${n}`)) return `${stem}-${n}`
+  const taken = useDB().select({ key: schema.scenarios.key }).from(schema.scenarios)
+    .where(or(eq(schema.scenarios.key, base), like(schema.scenarios.key, `${stem}%`))).all().map(r => r.key)
+  return nextFreeKey(base, taken, 'scenario')
 }
 
 export function keyTaken(key: string, exceptId?: string): boolean {
