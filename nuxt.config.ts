@@ -1,10 +1,7 @@
 // Brinkwater — Nuxt configuration. Runtime settings come from NUXT_* environment variables.
 export default defineNuxtConfig({
-  compatibilityDate: '2026-05-01',
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
   devtools: { enabled: false },
-  telemetry: false,
-  tailwindcss: { cssPath: '~/assets/css/main.css' },
   app: {
     head: {
       title: 'Brinkwater',
@@ -61,6 +58,7 @@ export default defineNuxtConfig({
   },
   // BW_BUILD_DIR / BW_OUTPUT_DIR let two builds run side by side (e.g. a second working copy's tests).
   buildDir: process.env.BW_BUILD_DIR || '.nuxt',
+  compatibilityDate: '2026-05-01',
   nitro: {
     output: { dir: process.env.BW_OUTPUT_DIR || '.output' },
     // Node 20's `module-sync` export condition is not followed by the file tracer (exceljs → async-function and friends).
@@ -71,5 +69,7 @@ export default defineNuxtConfig({
     optimizeDeps: { include: ['socket.io-client', 'dayjs'] },
   },
   typescript: { strict: true },
-  eslint: { config: { stylistic: false } },
+  telemetry: false,
+  eslint: { config: { stylistic: { indent: 2, quotes: 'single', semi: false, braceStyle: 'stroustrup', commaDangle: 'always-multiline' } } },
+  tailwindcss: { cssPath: '~/assets/css/main.css' },
 })

@@ -3,7 +3,6 @@ import type { Criterion, Inject, Objective, Phase, Scenario, SolutionEntry, Team
 import { currentSolutionAt } from '~~/shared/scenario'
 import type { Site } from '~~/shared/hazard/schema'
 
-
 const PALETTE = ['#0b73a0', '#d25d08', '#1f876b', '#6b4a9b', '#c22f45', '#40566b']
 
 export function blankTeam(doc: Scenario): Team {

@@ -16,7 +16,6 @@ export type InjectDef = Pick<Inject, 'key' | 'at' | 'kind' | 'teams' | 'title' |
 
 type InjectRow = typeof schema.exerciseInjects.$inferSelect
 
-
 /** Injects that are held or released, by key. */
 export function injectRows(db: DB | Tx, exerciseId: string) {
   const rows = db.select().from(schema.exerciseInjects).where(eq(schema.exerciseInjects.exerciseId, exerciseId)).all()
@@ -131,4 +130,3 @@ export function sendMessage(exerciseId: string, input: { teams: string[]; title:
     return { event, created: true }
   })
 }
-

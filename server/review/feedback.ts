@@ -85,4 +85,3 @@ export async function requestFeedback(exerciseId: string, input: { userIds?: str
   audit(sender.id, 'review.feedback.request', exerciseId, { recipients: to.map(m => m.userId) })
   return { sent: to.length }
 }
-
