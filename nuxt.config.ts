@@ -1,10 +1,7 @@
 // Brinkwater — Nuxt configuration. Runtime settings come from NUXT_* environment variables.
 export default defineNuxtConfig({
-  compatibilityDate: '2026-05-01',
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
   devtools: { enabled: false },
-  telemetry: false,
-  tailwindcss: { cssPath: '~/assets/css/main.css' },
   app: {
     head: {
       title: 'Brinkwater',
@@ -26,7 +23,7 @@ export default defineNuxtConfig({
     attachmentsDir: '',
     // Public address used in e-mailed links; NUXT_APP_URL overrides.
     appUrl: 'http://localhost:3000',
-    // Seed the demo accounts, scenario and exercise at start (NUXT_SEED_DEMO=1).
+    // Seed the demo accounts, scenario and exercise at start (NUXT_SEED_DEMO=1), password NUXT_DEMO_PASSWORD.
     seedDemo: false,
     demoPassword: 'brinkwater-demo',
     smtp: {
@@ -45,15 +42,23 @@ export default defineNuxtConfig({
     session: {
       name: 'brinkwater-session',
       maxAge: 60 * 60 * 12,
-      // Secure only behind HTTPS: NUXT_SECURE_COOKIES=1 or an https NUXT_APP_URL turns it on at start
-      // (server/middleware/01.security.ts); NUXT_SESSION_COOKIE_SECURE=true sets it directly.
+      // Secure only behind HTTPS: secureCookies (below) turns it on for every request (server/plugins/05.security.ts);
+      // NUXT_SESSION_COOKIE_SECURE=true sets it directly.
       cookie: { sameSite: 'lax', httpOnly: true, secure: false },
     },
+    // Served over HTTPS (NUXT_SECURE_COOKIES=1, or an https NUXT_APP_URL): the session cookie is marked Secure.
+    secureCookies: false,
+    // Behind a reverse proxy (NUXT_TRUST_PROXY=1): client address and host come from X-Forwarded-For / -Host.
+    trustProxy: false,
+    // The inject scheduler's pass interval and the lease that lets one process of several run it.
+    schedulerIntervalMs: 250,
+    schedulerLeaseMs: 3000,
     // Redis for Socket.IO across several processes (NUXT_REDIS_URL, e.g. redis://127.0.0.1:6379); empty: one process.
     redisUrl: '',
   },
   // BW_BUILD_DIR / BW_OUTPUT_DIR let two builds run side by side (e.g. a second working copy's tests).
   buildDir: process.env.BW_BUILD_DIR || '.nuxt',
+  compatibilityDate: '2026-05-01',
   nitro: {
     output: { dir: process.env.BW_OUTPUT_DIR || '.output' },
     // Node 20's `module-sync` export condition is not followed by the file tracer (exceljs → async-function and friends).
@@ -64,5 +69,7 @@ export default defineNuxtConfig({
     optimizeDeps: { include: ['socket.io-client', 'dayjs'] },
   },
   typescript: { strict: true },
-  eslint: { config: { stylistic: false } },
+  telemetry: false,
+  eslint: { config: { stylistic: { indent: 2, quotes: 'single', semi: false, braceStyle: 'stroustrup', commaDangle: 'always-multiline' } } },
+  tailwindcss: { cssPath: '~/assets/css/main.css' },
 })

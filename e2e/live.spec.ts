@@ -193,7 +193,6 @@ test('a short drill across the control desk, two team rooms, the evaluator desk 
     expect(overflow).toBeLessThanOrEqual(0)
   }
 
-
   // After a reload (dark theme this time) the room is the same: the record replays from the server.
   await sci.page.getByRole('heading', { name: 'Hazard brief', exact: true }).scrollIntoViewIfNeeded()
   await expect(sci.page.getByTestId('hazard-brief')).toBeVisible()

@@ -11,7 +11,7 @@ type Handler = (e: LiveEvent) => void
 export type LiveTarget = string | { wallToken: string }
 const targetKey = (t: LiveTarget) => (typeof t === 'string' ? t : `wall:${t.wallToken}`)
 
-// Client-only singletons: one live connection (apart from useSocket's), shared by every component.
+// Client-only singletons: one live connection, shared by every component.
 let socket: Socket | null = null
 let ticker: ReturnType<typeof setInterval> | null = null
 let users = 0

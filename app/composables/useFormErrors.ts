@@ -2,8 +2,6 @@ import type { z } from 'zod'
 import type { FieldIssue } from '~~/shared/utils/issues'
 import { fieldIssues } from '~~/shared/utils/issues'
 
-interface FetchErrorLike { data?: { message?: string; data?: { issues?: FieldIssue[] } }; statusCode?: number; message?: string }
-
 /** Field errors for a form: checked first in the browser with the shared zod schema, then from the server's 400. */
 export function useFormErrors() {
   const issues = ref<FieldIssue[]>([])
@@ -15,9 +13,9 @@ export function useFormErrors() {
     return r.success ? r.data : null
   }
   function fromError(e: unknown) {
-    const err = e as FetchErrorLike
-    issues.value = err.data?.data?.issues ?? []
-    message.value = err.data?.message ?? err.message ?? 'Something went wrong.'
+    const err = readFetchError(e)
+    issues.value = err.issues
+    message.value = err.message ?? (e as Error | null)?.message ?? 'Something went wrong.'
   }
   function reset() { issues.value = []; message.value = '' }
   return { issues, message, check, fromError, reset }

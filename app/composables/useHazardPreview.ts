@@ -3,7 +3,6 @@ import { orbitSolutionSchema, siteSchema } from '~~/shared/hazard/schema'
 import type { Assessment } from '~~/shared/hazard/types'
 
 interface PreviewSource { solution: unknown; sites: unknown }
-interface FetchErrorLike { data?: { message?: string } }
 
 const sitesSchema = z.array(siteSchema)
 
@@ -37,7 +36,7 @@ export function useHazardPreview(source: () => PreviewSource | null, samples = 5
       if (mine === ticket) { assessment.value = a; problem.value = '' }
     }
     catch (e) {
-      if (mine === ticket) problem.value = (e as FetchErrorLike).data?.message ?? 'The preview could not be computed.'
+      if (mine === ticket) problem.value = readFetchError(e).message ?? 'The preview could not be computed.'
     }
     finally { if (mine === ticket) pending.value = false }
   }

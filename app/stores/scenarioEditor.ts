@@ -9,7 +9,6 @@ import type { EditorTab } from '~/utils/scenarioPaths'
 
 export interface ScenarioAttachmentInfo { id: string; path: string; name: string; contentType: string; size: number }
 export interface LoadedScenario { id: string; revision: number; document: unknown; attachments?: ScenarioAttachmentInfo[] }
-interface FetchErrorLike { statusCode?: number; data?: { message?: string; data?: { issues?: FieldIssue[] } } }
 
 /** The scenario being edited: a local copy of the document, its problems, and saving. */
 export const useScenarioEditor = defineStore('scenarioEditor', () => {
@@ -100,10 +99,10 @@ export const useScenarioEditor = defineStore('scenarioEditor', () => {
       return true
     }
     catch (e) {
-      const err = e as FetchErrorLike
-      if (err.statusCode === 409) conflict.value = true
-      serverIssues.value = err.data?.data?.issues ?? []
-      notice.value = { kind: 'error', text: err.data?.message ?? 'The scenario could not be saved. Try again.' }
+      const err = readFetchError(e)
+      if (err.status === 409) conflict.value = true
+      serverIssues.value = err.issues
+      notice.value = { kind: 'error', text: err.message ?? 'The scenario could not be saved. Try again.' }
       return false
     }
     finally { saving.value = false }

@@ -52,10 +52,3 @@ export const RATING_MEANINGS: Record<Rating, string> = {
 
 /** Inject kinds in words: `decision-request` → `Decision request`. */
 export const kindText = (kind: string) => (kind.charAt(0).toUpperCase() + kind.slice(1)).replaceAll('-', ' ')
-
-/** The message of a failed $fetch, for a person. */
-export function failureText(e: unknown, fallback = 'That did not work. Try again.'): string {
-  const err = e as { data?: { message?: string }; statusCode?: number }
-  if (!err?.statusCode) return 'No answer from the server: check the connection and try again.'
-  return err.data?.message ?? fallback
-}

@@ -42,9 +42,3 @@ export interface ScenarioSummary {
   plannedWallMinutes: number
   finalImpactProbability: number | null
 }
-
-/** What a failed `$fetch` carries: status, message, field issues with optional line and column. */
-export interface ApiError {
-  statusCode?: number
-  data?: { message?: string; data?: { existingId?: string; issues?: Array<{ path: string; message: string; line?: number; column?: number }> } }
-}

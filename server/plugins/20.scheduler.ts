@@ -1,23 +1,23 @@
-// The inject scheduler: every SCHEDULER_INTERVAL_MS it releases what fell due in running exercises.
+import { scheduleIfHolder, stopScheduling } from '~~/server/live'
+
+// The inject scheduler: every schedulerIntervalMs (NUXT_SCHEDULER_INTERVAL_MS) it releases what fell due in running exercises.
 // Several processes may share the database: only the holder of the scheduler lease (a row in
 // SQLite, renewed while it runs, taken over after it expires or its process dies) schedules.
 // A process that takes the lease first covers paused exercises too, so what fell due while no
 // process was scheduling goes out once.
-const SCHEDULER_INTERVAL_MS = Number(process.env.NUXT_SCHEDULER_INTERVAL_MS) || 250
-const SCHEDULER_LEASE_MS = Number(process.env.NUXT_SCHEDULER_LEASE_MS) || 3000
-
 export default defineNitroPlugin((nitroApp) => {
+  const { schedulerIntervalMs, schedulerLeaseMs } = serverConfig()
   // A pass lets I/O run between releases, so one may outlast the interval: passes never overlap.
   let busy = false
   const tick = async () => {
     if (busy) return
     busy = true
-    try { await scheduleIfHolder(SCHEDULER_LEASE_MS) }
+    try { await scheduleIfHolder(schedulerLeaseMs) }
     catch (err) { console.error('[scheduler]', err) }
     finally { busy = false }
   }
   const first = setTimeout(() => void tick(), 0)
-  const timer = setInterval(() => void tick(), SCHEDULER_INTERVAL_MS)
+  const timer = setInterval(() => void tick(), schedulerIntervalMs)
   nitroApp.hooks.hook('close', () => {
     clearTimeout(first)
     clearInterval(timer)

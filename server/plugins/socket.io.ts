@@ -5,9 +5,10 @@ import { createAdapter } from '@socket.io/redis-adapter'
 import { Redis } from 'ioredis'
 import type { Socket } from 'socket.io'
 import { and, eq, gte, lte, min } from 'drizzle-orm'
-import { liveAuthSchema } from '../../shared/schemas/live'
-import { rooms } from '../../shared/live/visibility'
-import type { LiveReady, LiveView } from '../../shared/live/types'
+import { liveAuthSchema } from '#shared/schemas/live'
+import { rooms } from '#shared/live/visibility'
+import type { LiveReady, LiveView } from '#shared/live/types'
+import { clockNow, findWallToken, latestSeq, liveExercise, setIO, userFromHandshake, visibleEvents } from '~~/server/live'
 
 interface LiveSocketData { exerciseId: string; view: LiveView; lastSeq: number; wallTokenId?: string }
 
@@ -19,15 +20,6 @@ function roomsOf(exerciseId: string, view: LiveView): string[] {
     case 'player': return [rooms.team(exerciseId, view.teamKey)]
     case 'wall': return [rooms.wall(exerciseId)]
   }
-}
-
-/** The reader view of a signed-in user in an exercise; null when not a member (admins read as evaluators). */
-function memberView(exerciseId: string, userId: string, systemRole: string): LiveView | null {
-  const membership = useDB().select().from(schema.memberships)
-    .where(and(eq(schema.memberships.exerciseId, exerciseId), eq(schema.memberships.userId, userId))).get()
-  if (membership) return viewOf(membership)
-  const exists = useDB().select({ id: schema.exercises.id }).from(schema.exercises).where(eq(schema.exercises.id, exerciseId)).get()
-  return exists && systemRole === 'admin' ? viewOf(null) : null
 }
 
 /** How far back (wall ms) events of another process may arrive after later ones, with the Redis adapter. */
@@ -69,7 +61,7 @@ function joinLive(socket: Socket, live: LiveSocketData): void {
  * reaches the sockets connected to the others through Redis pub/sub (@socket.io/redis-adapter).
  */
 function attachRedisAdapter(io: Server): { close: () => Promise<void> } | null {
-  const url = process.env.NUXT_REDIS_URL || String(useRuntimeConfig().redisUrl || '')
+  const url = serverConfig().redisUrl
   if (!url) return null
   const pub = new Redis(url, { maxRetriesPerRequest: null })
   const sub = pub.duplicate()
@@ -108,14 +100,17 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
         return next()
       }
       const sessionUser = await userFromHandshake(socket.request)
-      const user = sessionUser && useDB().select().from(schema.users).where(eq(schema.users.id, sessionUser.id)).get()
-      if (!user || user.disabled) return next(new Error('unauthorized'))
-      socket.data.userId = user.id
-      socket.data.systemRole = user.systemRole
+      const user = sessionUser && activeUser(sessionUser.id)
+      if (!user) return next(new Error('unauthorized'))
       if (exerciseId) {
-        const view = memberView(exerciseId, user.id, user.systemRole)
-        if (!view) return next(new Error('forbidden'))
-        socket.data.live = { exerciseId, view, lastSeq } satisfies LiveSocketData
+        // The same rule as the HTTP routes: the `live.follow` capability of the permission table.
+        let access: ExerciseAccess
+        try { access = exerciseAccess(user, exerciseId, 'live.follow') }
+        catch (err) {
+          if (isDomainError(err)) return next(new Error('forbidden'))
+          throw err
+        }
+        socket.data.live = { exerciseId, view: access.view, lastSeq } satisfies LiveSocketData
       }
       next()
     }
@@ -125,10 +120,6 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
   })
 
   io.on('connection', (socket) => {
-    if (socket.data.userId) {
-      socket.join(`user:${socket.data.userId}`)
-      socket.emit('hello', { userId: socket.data.userId, serverTime: Date.now() })
-    }
     if (socket.data.live) {
       try { joinLive(socket, socket.data.live as LiveSocketData) }
       catch (err) {

@@ -1,13 +1,22 @@
 import { and, eq } from 'drizzle-orm'
 import type { H3Event } from 'h3'
-import type { ExerciseRole } from '../../shared/utils/roles'
-import type { Membership, User } from '../../shared/types/db'
+import type { z } from 'zod'
+import type { LiveView } from '#shared/live/types'
+import { idParamSchema } from '#shared/schemas/auth'
+import { hasCapability, viewOf, type Capability, type ExerciseStanding } from '#shared/utils/permissions'
+import type { Membership, User } from '#shared/types/db'
+
+/** A user by id if the account is active (null when unknown or disabled). */
+export function activeUser(userId: string): User | null {
+  const user = useDB().select().from(schema.users).where(eq(schema.users.id, userId)).get()
+  return user && !user.disabled ? user : null
+}
 
 /** The signed-in, active user, read fresh from the database. Anonymous or disabled → 401. */
 export async function requireUser(event: H3Event): Promise<User> {
   const session = await requireUserSession(event)
-  const user = useDB().select().from(schema.users).where(eq(schema.users.id, session.user.id)).get()
-  if (!user || user.disabled) {
+  const user = activeUser(session.user.id)
+  if (!user) {
     await clearUserSession(event)
     throw createError({ statusCode: 401, message: 'Sign in again.' })
   }
@@ -30,34 +39,47 @@ export async function requireAuthor(event: H3Event): Promise<User> {
 
 export interface ExerciseAccess {
   user: User
+  exerciseId: string
   /** Null for an admin looking in without a drill role. */
   membership: Membership | null
+  standing: ExerciseStanding
+  /** The reader view that filters and sanitises the event record. */
+  view: LiveView
 }
 
 /**
- * The one guard for exercise routes: the caller must hold one of `roles` in the exercise.
- * Not a member (or no such exercise) → 404, so existence does not leak; a member with
- * another role → 403. Admins pass only where `allowAdmin` is set (read-only views).
+ * The access of a user to an exercise for one capability of the permission table (`shared/utils/permissions.ts`).
+ * Not a member (or no such exercise), or an admin looking in where admins may not → 404, so that
+ * existence does not leak; a member whose role lacks the capability → 403. Used by the HTTP guard and the live socket.
  */
-export async function requireExerciseRole(
-  event: H3Event,
-  exerciseId: string,
-  roles: readonly ExerciseRole[],
-  opts: { allowAdmin?: boolean } = {},
-): Promise<ExerciseAccess> {
-  const user = await requireUser(event)
+export function exerciseAccess(user: User, exerciseId: string, capability: Capability): ExerciseAccess {
   const membership = useDB().select().from(schema.memberships)
     .where(and(eq(schema.memberships.exerciseId, exerciseId), eq(schema.memberships.userId, user.id))).get() ?? null
   if (!membership) {
     const exists = useDB().select({ id: schema.exercises.id }).from(schema.exercises).where(eq(schema.exercises.id, exerciseId)).get()
-    if (exists && user.systemRole === 'admin' && opts.allowAdmin) return { user, membership: null }
-    throw createError({ statusCode: 404, message: 'No such exercise.' })
+    if (exists && user.systemRole === 'admin' && hasCapability('admin-visitor', capability)) {
+      return { user, exerciseId, membership: null, standing: 'admin-visitor', view: viewOf(null) }
+    }
+    throw notFound('No such exercise.')
   }
-  if (!roles.includes(membership.role)) throw createError({ statusCode: 403, message: 'Your role in this exercise does not allow this.' })
-  return { user, membership }
+  if (!hasCapability(membership.role, capability)) throw forbidden('Your role in this exercise does not allow this.')
+  return { user, exerciseId, membership, standing: membership.role, view: viewOf(membership) }
 }
 
-export const ALL_EXERCISE_ROLES: readonly ExerciseRole[] = ['facilitator', 'player', 'evaluator', 'analyst']
+/**
+ * The one guard of exercise routes, in the house order: signed in (401) → valid route parameters
+ * with the exercise `id` (400) → the capability in that exercise (404 / 403, see `exerciseAccess`).
+ * Reads the user once; returns the access with the validated parameters.
+ */
+export async function requireExerciseAccess<S extends z.ZodType<{ id: string }> = typeof idParamSchema>(
+  event: H3Event,
+  capability: Capability,
+  paramsSchema?: S,
+): Promise<ExerciseAccess & { params: z.output<S> }> {
+  const user = await requireUser(event)
+  const params = paramsValid(event, paramsSchema ?? idParamSchema) as z.output<S>
+  return { ...exerciseAccess(user, params.id, capability), params }
+}
 
 /** What the session keeps of a user (ids only; roles are always read from the database). */
 export function sessionUser(user: User) {

@@ -1,5 +1,5 @@
 import { mkdirSync } from 'node:fs'
-import { dirname, resolve } from 'node:path'
+import { dirname } from 'node:path'
 import Database from 'better-sqlite3'
 import { drizzle } from 'drizzle-orm/better-sqlite3'
 import type { BetterSQLite3Database } from 'drizzle-orm/better-sqlite3'
@@ -8,6 +8,8 @@ import * as schema from '../db/schema'
 
 export { schema }
 export type DB = BetterSQLite3Database<typeof schema>
+/** A Drizzle transaction on the one SQLite connection. */
+export type Tx = Parameters<Parameters<DB['transaction']>[0]>[0]
 
 let sqlite: Database.Database | undefined
 let db: DB | undefined
@@ -19,8 +21,7 @@ let db: DB | undefined
  */
 export function useDB(): DB {
   if (db) return db
-  const config = useRuntimeConfig()
-  const file = resolve(process.env.NUXT_DB_PATH || config.dbPath)
+  const file = serverConfig().dbFile
   mkdirSync(dirname(file), { recursive: true })
   sqlite = new Database(file)
   sqlite.pragma('journal_mode = WAL')
@@ -39,6 +40,5 @@ export function useSqlite(): Database.Database {
 
 /** Applies the drizzle-kit migrations in `drizzle/` (or NUXT_MIGRATIONS_DIR). */
 export function runMigrations(): void {
-  const config = useRuntimeConfig()
-  migrate(useDB(), { migrationsFolder: resolve(process.env.NUXT_MIGRATIONS_DIR || config.migrationsDir) })
+  migrate(useDB(), { migrationsFolder: serverConfig().migrationsDir })
 }

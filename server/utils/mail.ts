@@ -35,5 +35,5 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
 
 /** Absolute link into the app for e-mails. */
 export function appLink(path: string): string {
-  return new URL(path, useRuntimeConfig().appUrl).toString()
+  return new URL(path, serverConfig().appUrl).toString()
 }

@@ -5,7 +5,7 @@ import type { H3Event } from 'h3'
 const perAccount = new RateLimiterMemory({ keyPrefix: 'login-acct', points: 5, duration: 15 * 60 })
 const perAddress = new RateLimiterMemory({ keyPrefix: 'login-ip', points: 30, duration: 15 * 60 })
 
-const clientAddress = (event: H3Event) => getRequestIP(event, { xForwardedFor: process.env.NUXT_TRUST_PROXY === '1' }) ?? 'unknown'
+const clientAddress = (event: H3Event) => getRequestIP(event, { xForwardedFor: serverConfig().trustProxy }) ?? 'unknown'
 
 function tooMany(event: H3Event, msBeforeNext: number): never {
   const seconds = Math.max(1, Math.ceil(msBeforeNext / 1000))

@@ -1,6 +1,8 @@
 import type { Content } from 'pdfmake/interfaces'
 import { findHazardFields } from '../../shared/scenario/fields'
 import type { Inject, Scenario } from '../../shared/scenario/schema'
+import { injectRows, liveExercise } from '../live'
+import { renderPdf } from '../review'
 
 /** An unreleased body with each hazard field shown by its name, `[energyMt.p50]`, for the facilitator to fill in. */
 export function bodyWithFieldNames(text: string): string {

@@ -4,6 +4,7 @@ import { durationText } from '../../shared/review/decisions'
 import { FINDING_KIND_LABELS, ITEM_STATUS_LABELS, POETE_LABELS, RATING_LABELS, RATINGS } from '../../shared/review/plan'
 import { pdfSafe } from '../../shared/review/pdftext'
 import { ROLE_LABELS, type ExerciseRole } from '../../shared/utils/roles'
+import { renderPdf } from '../review'
 
 type R = ReportData
 

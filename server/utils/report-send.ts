@@ -1,5 +1,6 @@
 import { DRILL_CAUTION, DRILL_MARKING } from '../../shared/utils/drill'
 import type { User } from '../../shared/types/db'
+import { fileStem, membersByIds } from '../review'
 
 /**
  * E-mails the after-action report to chosen members, the PDF attached (rendered once), one message

@@ -8,6 +8,7 @@ import { timelineRows } from '../../shared/review/timeline'
 import type { Scenario } from '../../shared/scenario/schema'
 import { DRILL_CAUTION, DRILL_MARKING } from '../../shared/utils/drill'
 import { ROLE_LABELS, EXERCISE_ROLES } from '../../shared/utils/roles'
+import { exerciseMembers, hotwashNotes, listFindings, listImprovements, reviewFeedback, reviewRecord, drillDates } from '../review'
 
 /** Events the condensed timeline keeps: the clock, publications, releases, messages and holds (responses, scores and observations have their own sections). */
 const CONDENSED = new Set(['clock.changed', 'solution.published', 'inject.released', 'message.sent', 'inject.held'])

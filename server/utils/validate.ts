@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
-import { fieldIssues } from '../../shared/utils/issues'
+import { fieldIssues } from '#shared/utils/issues'
 
 function parseOr400<S extends z.ZodType>(schema: S, value: unknown, what: string): z.output<S> {
   const result = schema.safeParse(value)

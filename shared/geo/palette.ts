@@ -6,13 +6,23 @@ import type { RunUpClass } from './overlays'
 import type { PointKind } from './scene'
 
 export interface MapPalette {
-  sea: string; land: string; coast: string; borders: string; graticule: string
-  corridor: string; corridorEdge: string; earlier: string; text: string; halo: string
+  sea: string
+  land: string
+  coast: string
+  borders: string
+  graticule: string
+  corridor: string
+  corridorEdge: string
+  earlier: string
+  text: string
+  halo: string
   points: Record<PointKind, string>
   ring: string
   site: Record<RunUpClass, string>
   siteEdge: string
-  marking: string; markingText: string; legendBg: string
+  marking: string
+  markingText: string
+  legendBg: string
 }
 
 export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
@@ -55,8 +65,15 @@ export function siteGlyph(tone: RunUpClass, x: number, y: number, r: number): st
 
 /** Chart colours (ECharts options) from the same palette, per theme. */
 export interface ChartPalette {
-  text: string; muted: string; axis: string; split: string
-  primary: string; secondary: string; danger: string; band: string; background: string
+  text: string
+  muted: string
+  axis: string
+  split: string
+  primary: string
+  secondary: string
+  danger: string
+  band: string
+  background: string
 }
 
 export const CHART_PALETTES: Record<'light' | 'dark', ChartPalette> = {

@@ -89,7 +89,8 @@ function legend(o: RenderMapOptions, kinds: PointKind[], earlier: boolean, rings
   if (earlier) rows.push({ glyph: `<rect x="0" y="-5" width="18" height="10" fill="none" stroke="${c.earlier}" stroke-dasharray="5 4"/>`, label: 'Risk corridor, earlier solutions' })
   for (const k of ['sea', 'land', 'air'] as const) {
     if (!kinds.includes(k)) continue
-    const g = k === 'sea' ? `<path d="M9 0h0" stroke="${c.points.sea}" stroke-width="4" stroke-linecap="round"/>`
+    const g = k === 'sea'
+      ? `<path d="M9 0h0" stroke="${c.points.sea}" stroke-width="4" stroke-linecap="round"/>`
       : k === 'land' ? `<rect x="6" y="-3" width="6" height="6" fill="${c.points.land}"/>` : `<circle cx="9" cy="0" r="3" fill="none" stroke="${c.points.air}"/>`
     rows.push({ glyph: g, label: POINT_LABELS[k] })
   }

@@ -15,17 +15,17 @@ export const MAX_FACTOR = 10_000_000
 /** The scenario window the clock may move in: scenario start to impact plus the aftermath. */
 export interface ClockBounds { start: number; end: number }
 
-export type ClockAction =
-  | { action: 'start'; factor?: number }
-  | { action: 'pause' }
-  | { action: 'resume' }
-  | { action: 'speed'; factor: number }
-  | { action: 'jump'; to: number }
-  | { action: 'end' }
+export type ClockAction
+  = | { action: 'start'; factor?: number }
+    | { action: 'pause' }
+    | { action: 'resume' }
+    | { action: 'speed'; factor: number }
+    | { action: 'jump'; to: number }
+    | { action: 'end' }
 
-export type ClockResult =
-  | { ok: true; state: ClockState; status: ExerciseStatus; from: number }
-  | { ok: false; code: 400 | 409; message: string; path?: string }
+export type ClockResult
+  = | { ok: true; state: ClockState; status: ExerciseStatus; from: number }
+    | { ok: false; code: 400 | 409; message: string; path?: string }
 
 type ClockLike = Pick<ClockState, 'factor' | 'paused'> & { wallAnchor: number | string; scenarioAnchor: number | string }
 

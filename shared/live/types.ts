@@ -33,11 +33,11 @@ export type ClockActionName = 'start' | 'pause' | 'resume' | 'speed' | 'jump' | 
 export type Audience = 'all' | 'control' | 'evaluators' | `teams:${string}`
 
 /** What one reader sees: decides the audience filter and the sanitising of payloads. */
-export type LiveView =
-  | { kind: 'control' }
-  | { kind: 'evaluator' }
-  | { kind: 'player'; teamKey: string }
-  | { kind: 'wall' }
+export type LiveView
+  = | { kind: 'control' }
+    | { kind: 'evaluator' }
+    | { kind: 'player'; teamKey: string }
+    | { kind: 'wall' }
 
 /** The drill marking and caution that travel with every hazard figure. */
 export interface DrillFlag { marking: string; caution: string }

@@ -24,7 +24,7 @@ describe('security headers and cross-site requests', () => {
     expect(crossSite.status).toBe(403)
     const users = (await c.get('/api/admin/users')).json.map((u: { email: string }) => u.email)
     expect(users).not.toContain('csrf@example.test')
-    const same = await c.request('POST', '/api/auth/forgot', { email: 'x@example.test' }, { origin: baseUrl(), 'sec-fetch-site': 'same-origin' })
+    const same = await c.request('POST', '/api/auth/forgot', { email: 'x@example.test' }, { 'origin': baseUrl(), 'sec-fetch-site': 'same-origin' })
     expect(same.status).toBe(202)
   })
 
@@ -37,7 +37,7 @@ describe('security headers and cross-site requests', () => {
     const sessionId = async (c: string) => ((await (await fetch(`${baseUrl()}/api/_auth/session`, { headers: { cookie: c } })).json()) as { id?: string }).id
     const firstId = await sessionId(first)
     expect(firstId).toBeTruthy()
-    const again = await fetch(`${baseUrl()}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', cookie: first }, body: JSON.stringify({ email: DEMO.analyst, password: DEMO_PASSWORD }) })
+    const again = await fetch(`${baseUrl()}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'cookie': first }, body: JSON.stringify({ email: DEMO.analyst, password: DEMO_PASSWORD }) })
     const second = again.headers.getSetCookie().find(c => c.startsWith('brinkwater-session='))!.split(';')[0]!
     expect(await sessionId(second)).not.toBe(firstId)
   })

@@ -65,7 +65,7 @@ describe('timeline exports', () => {
     expect(body.map(r => r[3])).toEqual(json.events.map((e: { type: string }) => e.type))
     const response = body.find(r => r[3] === 'response.submitted')!
     expect(response[9]).toBe(`'${FORMULA}`)
-    expect(body.find(r => r[3] === 'score.recorded')![9]).toBe("'+ plain figures, late by an hour")
+    expect(body.find(r => r[3] === 'score.recorded')![9]).toBe('\'+ plain figures, late by an hour')
     for (const r of body) for (const cell of r) expect(cell).not.toMatch(/^[=+\-@]/)
   })
 
@@ -79,7 +79,7 @@ describe('timeline exports', () => {
     const rows: unknown[][] = []
     ws.eachRow((row, n) => { if (n > 4) rows.push((row.values as unknown[]).slice(1)) })
     expect(rows.map(r => r[0])).toEqual(json.rows.map((r: { seq: number }) => r.seq))
-    expect(rows.map(r => r[8])).toEqual(json.rows.map((r: { summary: string }) => r.summary.replace(/^([=+\-@])/, "'$1")))
+    expect(rows.map(r => r[8])).toEqual(json.rows.map((r: { summary: string }) => r.summary.replace(/^([=+\-@])/, '\'$1')))
     expect(rows.find(r => r[3] === 'response.submitted')![9]).toBe(`'${FORMULA}`)
   })
 })

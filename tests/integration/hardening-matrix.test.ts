@@ -23,8 +23,15 @@ type Expect = number | { status: number; message: RegExp }
 type Expectations = Record<Role, Expect>
 
 interface Ctx {
-  exerciseId: string; scenarioId: string; released: string; published: string; facilitatorId: string
-  exerciseAttachment: string; scenarioAttachment: string; wallToken: string; missing: string
+  exerciseId: string
+  scenarioId: string
+  released: string
+  published: string
+  facilitatorId: string
+  exerciseAttachment: string
+  scenarioAttachment: string
+  wallToken: string
+  missing: string
 }
 interface Call { path: string; body?: unknown }
 
@@ -285,4 +292,3 @@ describe('socket rooms against every role', () => {
     expect((await new Client().get(`/api/wall/${ctx.wallToken}`)).status).toBe(404)
   }, 60_000)
 })
-

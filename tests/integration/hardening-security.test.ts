@@ -116,7 +116,7 @@ describe('cross-site requests', () => {
     ['a malformed origin', { origin: 'not a url' }],
     ['Sec-Fetch-Site cross-site', { 'sec-fetch-site': 'cross-site' }],
     ['Sec-Fetch-Site same-site (a sibling subdomain)', { 'sec-fetch-site': 'same-site' }],
-    ['a forged X-Forwarded-Host without a trusted proxy', { origin: 'https://evil.example', 'x-forwarded-host': 'evil.example' }],
+    ['a forged X-Forwarded-Host without a trusted proxy', { 'origin': 'https://evil.example', 'x-forwarded-host': 'evil.example' }],
   ]
   const targets: Array<[string, string, unknown]> = [
     ['POST', '/api/admin/invitations', { email: 'csrf@example.test', name: 'CSRF' }],
@@ -138,9 +138,9 @@ describe('cross-site requests', () => {
   }
 
   it('lets same-origin requests and safe methods through', async () => {
-    const same = await admin.call('GET', '/api/admin/users', undefined, { origin: 'https://evil.example', 'sec-fetch-site': 'cross-site' })
+    const same = await admin.call('GET', '/api/admin/users', undefined, { 'origin': 'https://evil.example', 'sec-fetch-site': 'cross-site' })
     expect(same.status).toBe(200)
-    const ok = await admin.call('POST', '/api/auth/forgot', { email: 'nobody@example.test' }, { origin: server.base, 'sec-fetch-site': 'same-origin' })
+    const ok = await admin.call('POST', '/api/auth/forgot', { email: 'nobody@example.test' }, { 'origin': server.base, 'sec-fetch-site': 'same-origin' })
     expect(ok.status).toBe(202)
     const typed = await admin.call('POST', '/api/auth/forgot', { email: 'nobody@example.test' }, { 'sec-fetch-site': 'none' })
     expect(typed.status).toBe(202)

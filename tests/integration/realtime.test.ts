@@ -13,15 +13,17 @@ function connect(cookie?: string, transports: Array<'websocket' | 'polling'> = [
 
 describe('realtime connection', () => {
   for (const transport of ['websocket', 'polling'] as const) {
-    it(`a signed-in client connects over ${transport} and is greeted with its user id`, async () => {
+    it(`a signed-in client connects over ${transport} and the server answers its clock ping`, async () => {
       const c = await as('science')
-      const me = (await c.get('/api/me')).json.user.id
       const s = connect(c.cookieHeader, [transport])
-      const hello = await new Promise<{ userId: string }>((ok, fail) => {
-        s.on('hello', ok)
+      await new Promise<void>((ok, fail) => {
+        s.on('connect', () => ok())
         s.on('connect_error', fail)
       })
-      expect(hello.userId).toBe(me)
+      const before = Date.now()
+      const pong = await s.timeout(5000).emitWithAck('ping:clock') as { serverTime: number }
+      expect(pong.serverTime).toBeGreaterThanOrEqual(before - 1000)
+      expect(pong.serverTime).toBeLessThanOrEqual(Date.now() + 1000)
     })
   }
 

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { inviteSchema } from '../../../shared/schemas/auth'
+import { inviteSchema } from '#shared/schemas/auth'
 
 // Invites a person by e-mail: creates the account without a password and mails a single-use link.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { forgotSchema } from '../../../shared/schemas/auth'
+import { forgotSchema } from '#shared/schemas/auth'
 
 // Always the same answer, so the form does not reveal which addresses have accounts.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { loginSchema } from '../../../shared/schemas/auth'
+import { loginSchema } from '#shared/schemas/auth'
 
 const BAD_CREDENTIALS = 'E-mail or password not recognised.'
 

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { setPasswordSchema } from '../../../shared/schemas/auth'
+import { setPasswordSchema } from '#shared/schemas/auth'
 
 // Completes an invitation or a reset: the token is spent, the password set, the person signed in.
 export default defineEventHandler(async (event) => {

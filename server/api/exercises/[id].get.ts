@@ -1,14 +1,12 @@
 import { eq } from 'drizzle-orm'
-import { idParamSchema } from '../../../shared/schemas/auth'
+import { getExercise } from '~~/server/library'
 
 // One exercise with its members and teams. The frozen scenario itself is not sent here: players
 // must never see expected actions, and each desk reads only what its role may.
 export default defineEventHandler(async (event) => {
-  const user = await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  const { membership } = await requireExerciseRole(event, id, ALL_EXERCISE_ROLES, { allowAdmin: true })
+  const { params: { id }, membership, standing, user } = await requireExerciseAccess(event, 'exercise.read')
   const { scenario, ...exercise } = getExercise(id)
-  const canManage = membership?.role === 'facilitator'
+  const canManage = hasCapability(standing, 'members.manage')
   const members = useDB().select({
     userId: schema.users.id, name: schema.users.name, email: schema.users.email, role: schema.memberships.role, teamKey: schema.memberships.teamKey,
   }).from(schema.memberships).innerJoin(schema.users, eq(schema.users.id, schema.memberships.userId))
@@ -21,6 +19,6 @@ export default defineEventHandler(async (event) => {
   return {
     exercise, attachments,
     scenario: scenario ? { key: scenario.key, title: scenario.title, summary: scenario.summary, teams: scenario.teams, clock: scenario.clock } : null,
-    membership, members, canManage, viewer: sessionUser(user),
+    membership, members, canManage, can: capabilityFlags(standing), viewer: sessionUser(user),
   }
 })

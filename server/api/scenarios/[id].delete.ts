@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm'
-import { idParamSchema } from '../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { getScenarioRow } from '~~/server/library'
 
 // Removes a scenario from the library; exercises started from it keep their frozen copy.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm'
-import { idParamSchema } from '../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { getScenarioRow, summarise } from '~~/server/library'
 
 // One scenario with its whole document and attachment list, for the editor.
 export default defineEventHandler(async (event) => {

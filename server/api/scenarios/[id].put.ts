@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../shared/schemas/auth'
-import { saveScenarioSchema } from '../../../shared/schemas/scenarios'
+import { idParamSchema } from '#shared/schemas/auth'
+import { saveScenarioSchema } from '#shared/schemas/scenarios'
+import { getScenarioRow, saveScenario, summarise } from '~~/server/library'
 
 // Saves the editor's document: validated whole (400 with a path per problem), revision-checked (409).
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,6 @@
-import { importQuerySchema } from '../../../shared/schemas/scenarios'
-import { MAX_SCENARIO_BYTES } from '../../../shared/scenario'
+import { importQuerySchema } from '#shared/schemas/scenarios'
+import { MAX_SCENARIO_BYTES } from '#shared/scenario'
+import { importScenario, readUpload, summarise } from '~~/server/library'
 
 // Upload of a scenario file (multipart, field "file"): all of it is stored, or nothing.
 export default defineEventHandler(async (event) => {

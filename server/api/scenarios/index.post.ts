@@ -1,4 +1,5 @@
-import { createScenarioSchema } from '../../../shared/schemas/scenarios'
+import { createScenarioSchema } from '#shared/schemas/scenarios'
+import { blankScenario, freeKey, insertScenario, keyTaken, summarise } from '~~/server/library'
 
 // A new scenario from the blank template, ready to edit.
 export default defineEventHandler(async (event) => {

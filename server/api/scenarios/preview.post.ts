@@ -1,5 +1,5 @@
-import { assessSolution } from '../../../shared/hazard'
-import { previewSchema } from '../../../shared/schemas/scenarios'
+import { assessSolution } from '#shared/hazard'
+import { previewSchema } from '#shared/schemas/scenarios'
 
 // The editor's live preview: the hazard assessment of one (unsaved) orbit solution.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
-import { wallParamsSchema } from '../../../shared/schemas/live'
+import { wallParamsSchema } from '#shared/schemas/live'
+import { findWallToken, wallSnapshot } from '~~/server/live'
 
 // The wall view by share link, without sign-in: unknown or revoked links → 404.
 export default defineEventHandler((event) => {

@@ -8,7 +8,7 @@ function ordered(p: Percentiles): boolean {
 
 function allPercentiles(a: Assessment): Percentiles[] {
   const top = [a.diameterM, a.massKg, a.energyMt, a.surfaceEnergyMt, a.burstAltitudeKm, a.waterCavityDiameterM].filter((p): p is Percentiles => p !== null)
-  return top.concat(a.sites.flatMap((s) => [s.distanceKm, s.overpressureKPa, s.windMS, s.thermalMJM2, s.seismicMagnitude, s.tsunamiAmplitudeM, s.tsunamiArrivalMin, s.tsunamiMainArrivalMin, s.runUpM]))
+  return top.concat(a.sites.flatMap(s => [s.distanceKm, s.overpressureKPa, s.windMS, s.thermalMJM2, s.seismicMagnitude, s.tsunamiAmplitudeM, s.tsunamiArrivalMin, s.tsunamiMainArrivalMin, s.runUpM]))
 }
 
 describe('assessSolution (Monte Carlo)', () => {
@@ -64,20 +64,20 @@ describe('assessSolution (Monte Carlo)', () => {
     const big = assessSolution(solution, sites.slice(0, 1), { samples: 30_000, seed: 5 })
     expect(big.impactPoints.length).toBeLessThanOrEqual(2000)
     expect(big.impactPoints.length).toBeGreaterThan(1000)
-    const seaShare = big.impactPoints.filter((p) => p[2] & 1).length / big.impactPoints.length
+    const seaShare = big.impactPoints.filter(p => p[2] & 1).length / big.impactPoints.length
     expect(Math.abs(seaShare - big.oceanImpactProbability)).toBeLessThan(0.05)
     for (const [lon, lat, f] of big.impactPoints) { expect(Math.abs(lon)).toBeLessThanOrEqual(180); expect(Math.abs(lat)).toBeLessThanOrEqual(90); expect(f & ~3).toBe(0) }
   })
 
   it('names its limits: tsunami figures are indicative; Chelyabinsk-like bursts are flagged high (Brown et al. 2013, Nature 503)', () => {
-    expect(a.warnings.map((w) => w.code)).toContain('tsunami-indicative')
+    expect(a.warnings.map(w => w.code)).toContain('tsunami-indicative')
     const small = assessSolution(demoSolution({ magnitude: { H: 26.3, sigma: 0.2 }, taxonomicClass: 'S', entrySpeedKmS: { mean: 19, sigma: 0.3 }, entryAngleDeg: { mean: 18, sigma: 2 } }), sites, { samples: 2000, seed: 1 })
     expect(small.airburstProbability).toBeGreaterThan(0.9)
-    expect(small.warnings.find((w) => w.code === 'high-burst')?.fraction).toBeGreaterThan(0.5)
+    expect(small.warnings.find(w => w.code === 'high-burst')?.fraction).toBeGreaterThan(0.5)
     const noDepth = assessSolution(demoSolution({ waterDepthM: 0 }), sites, { samples: 2000, seed: 1 })
-    expect(noDepth.warnings.map((w) => w.code)).toContain('depth-assumed')
+    expect(noDepth.warnings.map(w => w.code)).toContain('depth-assumed')
     const deep = assessSolution(demoSolution({ waterDepthM: 9000 }), sites, { samples: 2000, seed: 1 })
-    expect(deep.warnings.map((w) => w.code)).toContain('depth-out-of-range')
+    expect(deep.warnings.map(w => w.code)).toContain('depth-out-of-range')
   })
 
   it('makes no tsunami from high airbursts over the sea, only ripples from their debris (Berger & Goodman 2018, PAGEOPH 175; Morrison & Venkatapathy 2017)', () => {

@@ -18,7 +18,7 @@ describe('atmospheric entry (Collins, Melosh & Marcus 2005, MAPS 40(6), 817–84
   it('puts the closed-form swarm integral equal to a numerical integral of exp((z*-z)/H) (L/L0)^2 (eqs. 15, 17; self-consistency)', () => {
     const H = ENTRY.scaleHeightM
     for (const [zStar, l, z] of [[52_000, 6400, 0], [55_000, 49_000, 0], [30_000, 3000, 12_000], [60_000, 800, 40_000]] as const) {
-      const numeric = simpson((zz) => Math.exp((zStar - zz) / H) * (pancakeDiameterM(1, zStar, l, zz) ** 2), z, zStar)
+      const numeric = simpson(zz => Math.exp((zStar - zz) / H) * (pancakeDiameterM(1, zStar, l, zz) ** 2), z, zStar)
       expect(swarmIntegralM(zStar, l, z) / numeric).toBeCloseTo(1, 7)
     }
   })

@@ -65,7 +65,7 @@ describe('run-up (Synolakis 1987, JFM 185, continuous form): no drop at the brea
   it('is continuous and non-decreasing in the toe height on any shore profile, through both breaking points', () => {
     fc.assert(fc.property(profileIn, num(-3, 3), num(1e-9, 0.01), (pin, u, step) => {
       const p = shoreProfile(pin)
-      const points = [breakingLimit(p.cotBeach), OCEAN.breakingIndex, Math.exp(u)].map((x) => x * p.toeDepthM)
+      const points = [breakingLimit(p.cotBeach), OCEAN.breakingIndex, Math.exp(u)].map(x => x * p.toeDepthM)
       for (const h of points) {
         const a = runUpOnProfileM(p, h), b = runUpOnProfileM(p, h * (1 + step))
         expect(b).toBeGreaterThan(a)
@@ -160,7 +160,7 @@ describe('shoaling and speed (linear wave theory)', () => {
 
 describe('the tsunami band: two published source laws', () => {
   it('names a low and a high law with their equations and sources', () => {
-    expect(TSUNAMI_SOURCE_LAWS.map((l) => l.key)).toEqual(['low', 'high'])
+    expect(TSUNAMI_SOURCE_LAWS.map(l => l.key)).toEqual(['low', 'high'])
     expect(TSUNAMI_SOURCE_LAWS[0]!.source).toMatch(/Collins.*2005.*0\.07 D_tcw/)
     expect(TSUNAMI_SOURCE_LAWS[1]!.source).toMatch(/Ward & Asphaug 2000.*Icarus 145/)
   })

@@ -103,7 +103,7 @@ describe('properties over the input domain', () => {
       })
       const a = assessSolution(s, sites, { samples: 1500, seed: k })
       expect(JSON.parse(JSON.stringify(a))).toEqual(a)
-      for (const p of [a.diameterM, a.energyMt, a.surfaceEnergyMt, ...a.sites.map((x) => x.overpressureKPa), ...a.sites.map((x) => x.runUpM)]) {
+      for (const p of [a.diameterM, a.energyMt, a.surfaceEnergyMt, ...a.sites.map(x => x.overpressureKPa), ...a.sites.map(x => x.runUpM)]) {
         expect(p.p5).toBeLessThanOrEqual(p.p50)
         expect(p.p50).toBeLessThanOrEqual(p.p95)
         expect(p.p5).toBeGreaterThanOrEqual(0)

@@ -22,8 +22,8 @@ describe('risk scales', () => {
   })
 
   it('follows the zones of the Binzel 2000 figure', () => {
-    expect(torinoScale({ probability: 0.5, energyMt: 0.5 })).toBe(0)       // below 1 Mt
-    expect(torinoScale({ probability: 1e-8, energyMt: 10 })).toBe(0)       // below the (-1, -2) line
+    expect(torinoScale({ probability: 0.5, energyMt: 0.5 })).toBe(0) // below 1 Mt
+    expect(torinoScale({ probability: 1e-8, energyMt: 10 })).toBe(0) // below the (-1, -2) line
     expect(torinoScale({ probability: 1e-4, energyMt: 1000 })).toBe(1)
     expect(torinoScale({ probability: 0.005, energyMt: 1e4 })).toBe(2)
     expect(torinoScale({ probability: 0.005, energyMt: 1e7 })).toBe(6)

@@ -18,7 +18,7 @@ describe('percentiles by radix selection', () => {
     const makers: Array<(k: number) => number> = [
       () => Math.exp(20 * rng.uniform() - 10),
       () => 200 + 60 * rng.normal(),
-      (k) => (k % 3 === 0 ? 0 : rng.uniform()),
+      k => (k % 3 === 0 ? 0 : rng.uniform()),
       () => 3.5,
       () => (rng.uniform() < 0.5 ? 39 : 39 * rng.uniform()),
       () => -1e3 * rng.uniform(),

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { cohenKappa, kappaFromTable, landisKoch } from '../../../shared/review/agreement'
 import { guardCsvCell } from '../../../shared/review/csv'
 
-describe("Cohen's kappa", () => {
+describe('Cohen\'s kappa', () => {
   it('reproduces the worked example of Cohen (1960)', () => {
     // J. Cohen (1960), Educational and Psychological Measurement 20(1): 37–46, Table 1: 200 items,
     // three categories, p_o = .70, p_c = .41, κ = .49. The cell counts are from memory; the

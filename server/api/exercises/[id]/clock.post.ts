@@ -1,8 +1,12 @@
-import { clockActionSchema } from '../../../../shared/schemas/live'
+import { clockActionSchema } from '#shared/schemas/live'
+import { changeClock, runDue } from '~~/server/live'
 
 // The facilitator runs the clock: start, pause, resume, speed { factor }, jump { to | toNextInject }, end.
 export default defineEventHandler(async (event) => {
-  const { exerciseId, user } = await requireLiveRole(event, ['facilitator'])
+  const { exerciseId, user } = await requireExerciseAccess(event, 'live.control')
   const input = await readValid(event, clockActionSchema)
-  return changeClock(exerciseId, input, user.id)
+  const result = changeClock(exerciseId, input, user.id)
+  // A jump releases at once what fell due on the way.
+  if (input.action === 'jump') runDue(exerciseId)
+  return result
 })

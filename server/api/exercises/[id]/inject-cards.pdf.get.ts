@@ -1,10 +1,9 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
+import { getExercise } from '~~/server/library'
+import { downloadHeaders, fileStem } from '~~/server/review'
 
 // Printable inject cards, one page per inject of the frozen scenario (no expected actions).
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewer(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.export')
   const exercise = getExercise(id)
   const pdf = await injectCardsPdf(id)
   downloadHeaders(event, 'application/pdf', `${fileStem(exercise.title)}-inject-cards.pdf`)

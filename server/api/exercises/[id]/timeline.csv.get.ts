@@ -1,9 +1,7 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
+import { downloadHeaders, exerciseTimeline, fileStem, timelineCsv } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewer(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.export')
   const { exercise, rows } = exerciseTimeline(id)
   downloadHeaders(event, 'text/csv; charset=utf-8', `${fileStem(exercise.title)}-timeline.csv`)
   return `\uFEFF${timelineCsv(exercise.title, rows)}`

@@ -1,11 +1,9 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
-import { DRILL_CAUTION, DRILL_MARKING } from '../../../../shared/utils/drill'
+import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
+import { downloadHeaders, exerciseTimeline, fileStem } from '~~/server/review'
 
 // The record itself (every event with its full payload) plus the readable rows.
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewer(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.export')
   const { exercise, rows, events } = exerciseTimeline(id)
   downloadHeaders(event, 'application/json; charset=utf-8', `${fileStem(exercise.title)}-timeline.json`)
   return {

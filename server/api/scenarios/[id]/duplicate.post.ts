@@ -1,4 +1,5 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { duplicateScenario, getScenarioRow, summarise } from '~~/server/library'
 
 export default defineEventHandler(async (event) => {
   const user = await requireAuthor(event)

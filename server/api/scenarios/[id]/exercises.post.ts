@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
-import { startExerciseSchema } from '../../../../shared/schemas/scenarios'
+import { idParamSchema } from '#shared/schemas/auth'
+import { startExerciseSchema } from '#shared/schemas/scenarios'
+import { getScenarioRow, startExercise } from '~~/server/library'
 
 // Starts an exercise from this scenario: a frozen copy, with the caller as its facilitator.
 export default defineEventHandler(async (event) => {

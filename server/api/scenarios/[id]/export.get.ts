@@ -1,5 +1,6 @@
-import { idParamSchema } from '../../../../shared/schemas/auth'
-import { stringifyScenario } from '../../../../shared/scenario'
+import { idParamSchema } from '#shared/schemas/auth'
+import { stringifyScenario } from '#shared/scenario'
+import { getScenarioRow } from '~~/server/library'
 
 // The scenario as a YAML file (the same format the import reads).
 export default defineEventHandler(async (event) => {

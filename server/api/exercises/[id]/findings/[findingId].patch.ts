@@ -1,9 +1,8 @@
-import { findingParamsSchema, findingPatchSchema } from '../../../../../shared/schemas/review'
+import { findingParamsSchema, findingPatchSchema } from '#shared/schemas/review'
+import { updateFinding } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id, findingId } = paramsValid(event, findingParamsSchema)
-  const { user } = await requireReviewWriter(event, id)
+  const { params: { id, findingId }, user } = await requireExerciseAccess(event, 'review.write', findingParamsSchema)
   const patch = await readValid(event, findingPatchSchema)
   return updateFinding(id, findingId, patch, user.id)
 })

@@ -1,9 +1,8 @@
-import { improvementParamsSchema } from '../../../../../shared/schemas/review'
+import { improvementParamsSchema } from '#shared/schemas/review'
+import { deleteImprovement } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id, itemId } = paramsValid(event, improvementParamsSchema)
-  const { user } = await requireReviewWriter(event, id)
+  const { params: { id, itemId }, user } = await requireExerciseAccess(event, 'review.write', improvementParamsSchema)
   deleteImprovement(id, itemId, user.id)
   setResponseStatus(event, 204)
   return null

@@ -1,9 +1,8 @@
-import { improvementParamsSchema, improvementPatchSchema } from '../../../../../shared/schemas/review'
+import { improvementParamsSchema, improvementPatchSchema } from '#shared/schemas/review'
+import { updateImprovement } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id, itemId } = paramsValid(event, improvementParamsSchema)
-  const { user } = await requireReviewWriter(event, id)
+  const { params: { id, itemId }, user } = await requireExerciseAccess(event, 'review.write', improvementParamsSchema)
   const patch = await readValid(event, improvementPatchSchema)
   return updateImprovement(id, itemId, patch, user.id)
 })

@@ -1,8 +1,6 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { listImprovements } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewReader(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.read')
   return listImprovements(id)
 })

@@ -1,11 +1,10 @@
 import { and, eq } from 'drizzle-orm'
-import { exerciseMemberParams } from '../../../../../shared/schemas/scenarios'
+import { exerciseMemberParams } from '#shared/schemas/scenarios'
+import { assertFacilitatorRemains } from '~~/server/library'
 
 // The facilitator removes a member; the last facilitator cannot be removed.
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id, userId } = paramsValid(event, exerciseMemberParams)
-  const { user } = await requireExerciseRole(event, id, ['facilitator'])
+  const { params: { id, userId }, user } = await requireExerciseAccess(event, 'members.manage', exerciseMemberParams)
   const where = and(eq(schema.memberships.exerciseId, id), eq(schema.memberships.userId, userId))
   const current = useDB().select().from(schema.memberships).where(where).get()
   if (!current) throw createError({ statusCode: 404, message: 'No such member.' })

@@ -1,11 +1,10 @@
 import { and, eq } from 'drizzle-orm'
-import { exerciseMemberParams, memberPatchSchema } from '../../../../../shared/schemas/scenarios'
+import { exerciseMemberParams, memberPatchSchema } from '#shared/schemas/scenarios'
+import { assertFacilitatorRemains, checkTeam, getExercise } from '~~/server/library'
 
 // The facilitator changes a member's role or team.
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id, userId } = paramsValid(event, exerciseMemberParams)
-  const { user } = await requireExerciseRole(event, id, ['facilitator'])
+  const { params: { id, userId }, user } = await requireExerciseAccess(event, 'members.manage', exerciseMemberParams)
   const input = await readValid(event, memberPatchSchema)
   const teamKey = checkTeam(getExercise(id), input.role, input.teamKey)
   const where = and(eq(schema.memberships.exerciseId, id), eq(schema.memberships.userId, userId))

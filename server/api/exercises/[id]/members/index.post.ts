@@ -1,12 +1,10 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { memberSchema } from '../../../../../shared/schemas/scenarios'
+import { memberSchema } from '#shared/schemas/scenarios'
+import { checkTeam, getExercise } from '~~/server/library'
 
 // The facilitator adds a person (who already has an account) by e-mail, with a role and team.
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  const { user } = await requireExerciseRole(event, id, ['facilitator'])
+  const { params: { id }, user } = await requireExerciseAccess(event, 'members.manage')
   const input = await readValid(event, memberSchema)
   const exercise = getExercise(id)
   const teamKey = checkTeam(exercise, input.role, input.teamKey)

@@ -1,9 +1,5 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-
 // The after-action report's content for the printable page (the PDF is drawn from the same data).
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewer(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.export')
   return reportData(id, { map: true })
 })

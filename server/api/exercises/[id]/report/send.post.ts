@@ -1,11 +1,8 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
-import { reportSendSchema } from '../../../../../shared/schemas/review'
+import { reportSendSchema } from '#shared/schemas/review'
 
 // Sends the after-action report (PDF attached) to chosen members of the exercise.
 export default defineEventHandler(async (event) => {
-  const user = await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewWriter(event, id)
+  const { params: { id }, user } = await requireExerciseAccess(event, 'review.write')
   const input = await readValid(event, reportSendSchema)
   return sendReport(id, input, user)
 })

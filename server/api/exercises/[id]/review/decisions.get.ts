@@ -1,9 +1,7 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { reviewDecisions } from '~~/server/review'
 
 // Decisions with the time each team took to answer (release to first response, against the deadline), per team and per phase.
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewReader(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.read')
   return reviewDecisions(id)
 })

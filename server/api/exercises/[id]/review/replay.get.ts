@@ -1,9 +1,7 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { replayRecord } from '~~/server/review'
 
 // The record with audiences for the replay (assessments left out; see review/solutions/[key]).
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewReader(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.read')
   return replayRecord(id)
 })

@@ -1,9 +1,7 @@
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { reviewScoring } from '~~/server/review'
 
 // Evaluators' ratings by objective and capability, observations, Cohen's kappa per pair of evaluators and their disagreements.
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id } = paramsValid(event, idParamSchema)
-  await requireReviewReader(event, id)
+  const { params: { id } } = await requireExerciseAccess(event, 'review.read')
   return reviewScoring(id)
 })

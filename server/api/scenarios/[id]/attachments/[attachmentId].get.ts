@@ -1,5 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { attachmentParams } from '../../../../../shared/schemas/scenarios'
+import { attachmentParams } from '#shared/schemas/scenarios'
+import { sendAttachment } from '~~/server/library'
 
 // An attachment of a library scenario, for its authors.
 export default defineEventHandler(async (event) => {

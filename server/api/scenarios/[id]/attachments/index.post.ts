@@ -1,5 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamSchema } from '../../../../../shared/schemas/auth'
+import { idParamSchema } from '#shared/schemas/auth'
+import { ALLOWED_ATTACHMENTS, getScenarioRow, MAX_ATTACHMENT_BYTES, putBlob, readUpload, safeFileName, sniffContentType } from '~~/server/library'
 
 // Upload of an inject attachment (multipart, field "file"): type sniffed from the bytes, size-limited.
 export default defineEventHandler(async (event) => {

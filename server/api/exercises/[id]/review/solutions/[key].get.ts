@@ -1,9 +1,8 @@
-import { solutionReviewParamsSchema } from '../../../../../../shared/schemas/review'
+import { solutionReviewParamsSchema } from '#shared/schemas/review'
+import { publishedSolution } from '~~/server/review'
 
 // A published solution with its stored assessment, for the replay's hazard brief.
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  const { id, key } = paramsValid(event, solutionReviewParamsSchema)
-  await requireReviewReader(event, id)
+  const { params: { id, key } } = await requireExerciseAccess(event, 'review.read', solutionReviewParamsSchema)
   return publishedSolution(id, key)
 })

@@ -2,15 +2,12 @@ import { eq } from 'drizzle-orm'
 import type { H3Event } from 'h3'
 import Papa from 'papaparse'
 import ExcelJS from 'exceljs'
-import { guardCsvCell } from '../../shared/review/csv'
-import { TIMELINE_COLUMNS, timelineRows } from '../../shared/review/timeline'
-import type { TimelineRow } from '../../shared/review/timeline'
-import { DRILL_CAUTION, DRILL_MARKING } from '../../shared/utils/drill'
-
-/** Exports are for the exercise's analyst and facilitator (admins may look in); others 403/404. */
-export async function requireReviewer(event: H3Event, exerciseId: string) {
-  return requireExerciseRole(event, exerciseId, ['facilitator', 'analyst'], { allowAdmin: true })
-}
+import { guardCsvCell } from '#shared/review/csv'
+import { TIMELINE_COLUMNS, timelineRows } from '#shared/review/timeline'
+import type { TimelineRow } from '#shared/review/timeline'
+import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
+import { getExercise } from '../library'
+import { storedEvents } from '../live'
 
 /** The whole timeline of an exercise (every event of its record) as rows. */
 export function exerciseTimeline(exerciseId: string) {

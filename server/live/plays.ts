@@ -1,8 +1,9 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
-import type { Membership, User } from '../../shared/types/db'
+import type { Membership, User } from '#shared/types/db'
+import { injectDef, injectRows } from './injects'
+import { findIdempotent, liveWrite } from './record'
 
-const badField = (path: string, message: string) => createError({ statusCode: 400, message: 'Invalid request body: check the listed fields.', data: { issues: [{ path, message }] } })
 const by = (user: User) => ({ id: user.id, name: user.name })
 
 /**
@@ -13,12 +14,12 @@ export function submitResponse(exerciseId: string, user: User, membership: Membe
   return liveWrite(exerciseId, (w) => {
     const again = findIdempotent(w.tx, exerciseId, user.id, input.idempotencyKey, 'response.submitted')
     if (again) return { event: again, created: false }
-    if (w.exercise.status === 'ended') throw createError({ statusCode: 409, message: 'The exercise has ended.' })
+    if (w.exercise.status === 'ended') throw exerciseEnded()
     const teamKey = membership.teamKey ?? ''
     const row = w.tx.select().from(schema.exerciseInjects)
       .where(and(eq(schema.exerciseInjects.exerciseId, exerciseId), eq(schema.exerciseInjects.injectKey, input.injectKey))).get()
     const def = row?.status === 'released' ? injectDef(w.exercise, input.injectKey, row) : null
-    if (!def || !def.teams.includes(teamKey)) throw createError({ statusCode: 404, message: 'No such inject in your team\'s traffic.' })
+    if (!def || !def.teams.includes(teamKey)) throw notFound('No such inject in your team\'s traffic.')
     if (input.choice && !def.decision?.choices?.includes(input.choice)) throw badField('choice', def.decision?.choices ? 'not one of the choices' : 'this inject offers no choices')
     const late = def.decision ? w.scenarioNow > Date.parse(def.decision.deadline) : false
     const event = w.append({

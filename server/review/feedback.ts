@@ -1,16 +1,18 @@
 import { and, eq } from 'drizzle-orm'
-import { feedbackSummary, type FeedbackEntry } from '../../shared/review/feedback'
-import { FEEDBACK_QUESTIONS, FEEDBACK_SCALE } from '../../shared/review/plan'
-import type { FeedbackInput } from '../../shared/schemas/review'
-import { DRILL_MARKING } from '../../shared/utils/drill'
-import { ROLE_LABELS } from '../../shared/utils/roles'
-import type { User } from '../../shared/types/db'
+import { feedbackSummary, type FeedbackEntry } from '#shared/review/feedback'
+import { FEEDBACK_QUESTIONS, FEEDBACK_SCALE } from '#shared/review/plan'
+import type { FeedbackInput } from '#shared/schemas/review'
+import { DRILL_MARKING } from '#shared/utils/drill'
+import { ROLE_LABELS } from '#shared/utils/roles'
+import type { User } from '#shared/types/db'
+import { getExercise } from '../library'
+import { exerciseMembers } from './review'
 
 /** The members an action names, all of them members of the exercise (400 with the path of any other). */
 export function membersByIds(exerciseId: string, userIds: readonly string[]) {
   const members = exerciseMembers(exerciseId)
   const issues = userIds.flatMap((id, i) => (members.some(m => m.userId === id) ? [] : [{ path: `userIds[${i}]`, message: 'not a member of this exercise' }]))
-  if (issues.length) throw createError({ statusCode: 400, message: 'Invalid request body: check the listed fields.', data: { issues } })
+  if (issues.length) throw invalidFields(issues)
   return members.filter(m => userIds.includes(m.userId))
 }
 
@@ -62,7 +64,7 @@ export function reviewFeedback(exerciseId: string) {
  */
 export async function requestFeedback(exerciseId: string, input: { userIds?: string[]; message: string }, sender: User) {
   const exercise = getExercise(exerciseId)
-  if (exercise.status !== 'ended') throw createError({ statusCode: 409, message: 'Send the feedback form once the drill has ended.' })
+  if (exercise.status !== 'ended') throw conflict('Send the feedback form once the drill has ended.')
   const to = input.userIds ? membersByIds(exerciseId, input.userIds) : exerciseMembers(exerciseId).filter(m => m.userId !== sender.id)
   const link = appLink(`/exercises/${exerciseId}/feedback`)
   for (const m of to) {
@@ -83,4 +85,3 @@ export async function requestFeedback(exerciseId: string, input: { userIds?: str
   audit(sender.id, 'review.feedback.request', exerciseId, { recipients: to.map(m => m.userId) })
   return { sent: to.length }
 }
-

@@ -1,5 +1,7 @@
 import { and, eq } from 'drizzle-orm'
-import type { ExerciseRole } from '../../shared/utils/roles'
+import type { ExerciseRole } from '#shared/utils/roles'
+import { startExercise } from './exercises'
+import { scenariosDir, seedScenarios } from './scenarios'
 
 export const DEMO_ACCOUNTS: Array<{ email: string; name: string; systemRole: 'admin' | 'member'; role?: ExerciseRole; teamKey?: string; canAuthor?: boolean }> = [
   { email: 'admin@brinkwater.test', name: 'Avery Holm (admin)', systemRole: 'admin' },
@@ -17,7 +19,7 @@ export const DEMO_EXERCISE_TITLE = 'Demo drill — Gannet ocean impact off the W
 /** Creates the demo accounts and the demo exercise; running it again changes nothing. */
 export async function seedDemo(): Promise<void> {
   const db = useDB()
-  const password = process.env.DEMO_PASSWORD || useRuntimeConfig().demoPassword
+  const password = serverConfig().demoPassword
   const hash = await hashPassword(password)
   const ids = new Map<string, string>()
   for (const a of DEMO_ACCOUNTS) {

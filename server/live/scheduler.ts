@@ -1,8 +1,13 @@
 import { eq, inArray } from 'drizzle-orm'
-import { clockBounds, clockDto, scenarioTimeAt, stopAtEnd } from '../../shared/live/clock'
-import { dueItems, type DueItem } from '../../shared/live/schedule'
-
-const isConflict = (err: unknown) => (err as { statusCode?: number })?.statusCode === 409
+import { clockBounds, clockDto, scenarioTimeAt, stopAtEnd } from '#shared/live/clock'
+import { dueItems, type DueItem } from '#shared/live/schedule'
+import { publishedSolutions } from './assessments'
+import { readClock, writeClock } from './clock'
+import { injectRows, releaseInject } from './injects'
+import { acquireLease, LEASE_HOLDER, releaseLease } from './lease'
+import { liveWrite } from './record'
+import type { LiveExercise } from './types'
+import { publishSolution } from './solutions'
 
 /** A running clock past the end of the scenario stops there (`clock.changed`, action `auto-pause`). */
 function pauseAtEnd(exerciseId: string): void {
@@ -36,7 +41,8 @@ function runItem(exerciseId: string, item: DueItem): boolean {
     return true
   }
   catch (err) {
-    if (!isConflict(err)) throw err
+    // Released or published meanwhile (by hand or by another process), or the drill ended: nothing to do.
+    if (!isDomainError(err, 'conflict', 'ended')) throw err
     return false
   }
 }

@@ -1,30 +1,25 @@
-import { createHash, randomBytes } from 'node:crypto'
-import { and, asc, eq } from 'drizzle-orm'
-import { assessSolution } from '../../shared/hazard/assess'
-import type { Assessment } from '../../shared/hazard/types'
-import { assessmentHeadline, hasHazardFields, renderBody } from '../../shared/live/headline'
-import { phaseAt } from '../../shared/live/schedule'
-import { DRILL, teamsAudience } from '../../shared/live/visibility'
-import type { InjectData, SolutionPublishedData } from '../../shared/live/types'
-import { BUILT_IN_INJECT_KINDS } from '../../shared/scenario/constants'
-import { validateHazardFields } from '../../shared/scenario/fields'
-import type { Inject } from '../../shared/scenario/schema'
-
-/** Samples of every published assessment (20 000 keeps the 5/50/95 percentiles steady from run to run). */
-export const PUBLISH_SAMPLES = 20_000
+import { randomBytes } from 'node:crypto'
+import { and, eq } from 'drizzle-orm'
+import { hasHazardFields, renderBody } from '#shared/live/headline'
+import { phaseAt } from '#shared/live/schedule'
+import { DRILL, teamsAudience } from '#shared/live/visibility'
+import type { InjectData } from '#shared/live/types'
+import { BUILT_IN_INJECT_KINDS } from '#shared/scenario/constants'
+import { validateHazardFields } from '#shared/scenario/fields'
+import type { Inject } from '#shared/scenario/schema'
+import { assessmentAt, type Published, publishedSolutions } from './assessments'
+import { findIdempotent, liveWrite, type LiveWriter } from './record'
+import type { LiveExercise } from './types'
 
 /** An inject as the live services use it: a scenario inject, or an ad-hoc message's definition. */
 export type InjectDef = Pick<Inject, 'key' | 'at' | 'kind' | 'teams' | 'title' | 'body'> & Partial<Pick<Inject, 'solution' | 'decision' | 'expectedActions' | 'contingency' | 'attachments'>> & { phase: string | null; adhoc?: boolean }
 
 type InjectRow = typeof schema.exerciseInjects.$inferSelect
-interface Published { key: string; seq: number }
 
-const conflict = (message: string, data?: Record<string, unknown>) => createError({ statusCode: 409, message, data })
-const notFound = (message: string) => createError({ statusCode: 404, message })
-
-/** The deterministic Monte Carlo seed of a solution in an exercise (31 bits of SHA-256 of "<exercise id>:<solution key>"). */
-export function solutionSeed(exerciseId: string, solutionKey: string): number {
-  return createHash('sha256').update(`${exerciseId}:${solutionKey}`).digest().readUInt32BE(0) >>> 1
+/** Injects that are held or released, by key. */
+export function injectRows(db: DB | Tx, exerciseId: string) {
+  const rows = db.select().from(schema.exerciseInjects).where(eq(schema.exerciseInjects.exerciseId, exerciseId)).all()
+  return new Map(rows.map(r => [r.injectKey, r]))
 }
 
 /** An inject of the exercise by key: the scenario's, or an ad-hoc message's stored definition. */
@@ -33,40 +28,12 @@ export function injectDef(exercise: LiveExercise, key: string, row?: InjectRow |
   return exercise.scenario.injects.find(i => i.key === key) ?? null
 }
 
-/** Published solutions of an exercise in publication order. */
-export function publishedSolutions(db: DB | Tx, exerciseId: string): Published[] {
-  return db.select({ key: schema.exerciseSolutions.solutionKey, seq: schema.exerciseSolutions.seq }).from(schema.exerciseSolutions)
-    .where(eq(schema.exerciseSolutions.exerciseId, exerciseId)).orderBy(asc(schema.exerciseSolutions.seq)).all()
-}
-
-// Assessments are immutable once published; keep the most recent ones (≈ 60 kB each) in memory.
-const assessments = new Map<string, Assessment>()
-const MAX_CACHED = 64
-function remember(key: string, a: Assessment) {
-  assessments.set(key, a)
-  if (assessments.size > MAX_CACHED) assessments.delete(assessments.keys().next().value!)
-}
-
-/** The stored assessment of a published solution (read from its event, kept in memory: it never changes). */
-export function assessmentAt(db: DB | Tx, exerciseId: string, seq: number): Assessment {
-  const key = `${exerciseId}:${seq}`
-  let a = assessments.get(key)
-  if (!a) {
-    const row = db.select({ payload: schema.exerciseEvents.payload }).from(schema.exerciseEvents)
-      .where(and(eq(schema.exerciseEvents.exerciseId, exerciseId), eq(schema.exerciseEvents.seq, seq))).get()
-    if (!row) throw new Error(`no event ${seq} in exercise ${exerciseId}`)
-    a = (row.payload as unknown as SolutionPublishedData).assessment
-    remember(key, a)
-  }
-  return a
-}
-
 /** The solution an inject shows: the one it presents (once published), else the latest published. */
 function solutionFor(def: InjectDef, published: readonly Published[]): Published | null {
   return (def.solution && published.find(p => p.key === def.solution)) || published.at(-1) || null
 }
 
-function render(db: DB | Tx, exerciseId: string, def: InjectDef, published: readonly Published[]) {
+export function renderInject(db: DB | Tx, exerciseId: string, def: InjectDef, published: readonly Published[]) {
   if (!hasHazardFields(def.body)) return { body: renderBody(def.body, null), solutionKey: null }
   const s = solutionFor(def, published)
   return { body: renderBody(def.body, s && assessmentAt(db, exerciseId, s.seq)), solutionKey: s?.key ?? null }
@@ -80,7 +47,7 @@ function attachmentRefs(tx: Tx, exerciseId: string, def: InjectDef) {
 }
 
 function injectData(w: LiveWriter, def: InjectDef, opts: { manual: boolean; wasHeld: boolean }): InjectData {
-  const { body, solutionKey } = render(w.tx, w.exercise.id, def, publishedSolutions(w.tx, w.exercise.id))
+  const { body, solutionKey } = renderInject(w.tx, w.exercise.id, def, publishedSolutions(w.tx, w.exercise.id))
   const data: InjectData = {
     key: def.key, adhoc: !!def.adhoc, title: def.title, kind: def.kind, phase: def.phase, teams: def.teams, at: def.at,
     body, solutionKey, revision: 0, manual: opts.manual, wasHeld: opts.wasHeld, drill: DRILL,
@@ -99,7 +66,7 @@ function injectData(w: LiveWriter, def: InjectDef, opts: { manual: boolean; wasH
  */
 export function releaseInject(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
   return liveWrite(exerciseId, (w) => {
-    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
+    if (w.exercise.status === 'ended') throw exerciseEnded()
     const def = injectDef(w.exercise, key)
     if (!def) throw notFound('No such inject in this exercise.')
     const row = w.tx.select().from(schema.exerciseInjects)
@@ -117,7 +84,7 @@ export function releaseInject(exerciseId: string, key: string, opts: { actorId?:
 /** Holds a scenario inject so that the scheduler skips it; holding a held one changes nothing. */
 export function holdInject(exerciseId: string, key: string, actorId: string) {
   return liveWrite(exerciseId, (w) => {
-    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
+    if (w.exercise.status === 'ended') throw exerciseEnded()
     const def = injectDef(w.exercise, key)
     if (!def) throw notFound('No such inject in this exercise.')
     const row = w.tx.select().from(schema.exerciseInjects)
@@ -140,7 +107,7 @@ function checkMessage(exercise: LiveExercise, input: { teams: string[]; body: st
     ...(kinds.has(input.kind) ? [] : [{ path: 'kind', message: `unknown kind "${input.kind}"` }]),
     ...validateHazardFields(input.body, scenario.sites.map(s => s.id)).map(i => ({ path: 'body', message: `${i.line}:${i.column} ${i.message}` })),
   ]
-  if (issues.length) throw createError({ statusCode: 400, message: 'Invalid request body: check the listed fields.', data: { issues } })
+  if (issues.length) throw invalidFields(issues)
 }
 
 /** Sends an ad-hoc message from the facilitator, recorded and shown like an inject (`message.sent`). */
@@ -148,7 +115,7 @@ export function sendMessage(exerciseId: string, input: { teams: string[]; title:
   return liveWrite(exerciseId, (w) => {
     const again = findIdempotent(w.tx, exerciseId, actorId, input.idempotencyKey, 'message.sent')
     if (again) return { event: again, created: false }
-    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
+    if (w.exercise.status === 'ended') throw exerciseEnded()
     checkMessage(w.exercise, input)
     const def: InjectDef = {
       key: `msg-${randomBytes(5).toString('hex')}`, adhoc: true, at: new Date(w.scenarioNow).toISOString(),
@@ -161,51 +128,5 @@ export function sendMessage(exerciseId: string, input: { teams: string[]; title:
       releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey,
     }).run()
     return { event, created: true }
-  })
-}
-
-/** Re-renders released injects against the published solutions; appends `inject.revised` where the text changed. */
-function reviseReleased(w: LiveWriter, published: readonly Published[]) {
-  const allTeams = w.exercise.scenario.teams.map(t => t.key)
-  const rows = w.tx.select().from(schema.exerciseInjects)
-    .where(and(eq(schema.exerciseInjects.exerciseId, w.exercise.id), eq(schema.exerciseInjects.status, 'released'))).orderBy(asc(schema.exerciseInjects.releasedSeq)).all()
-  for (const row of rows) {
-    const def = injectDef(w.exercise, row.injectKey, row)
-    if (!def || !hasHazardFields(def.body)) continue
-    const next = render(w.tx, w.exercise.id, def, published)
-    if (next.solutionKey === row.solutionKey || next.body === row.body) continue
-    const revision = row.revision + 1
-    w.tx.update(schema.exerciseInjects).set({ body: next.body, solutionKey: next.solutionKey, revision }).where(eq(schema.exerciseInjects.id, row.id)).run()
-    w.append({
-      type: 'inject.revised', audience: teamsAudience(def.teams, allTeams),
-      data: { key: row.injectKey, teams: def.teams, revision, body: next.body, solutionKey: next.solutionKey, previousSolutionKey: row.solutionKey, drill: DRILL },
-    })
-  }
-}
-
-/**
- * Publishes an orbit solution: runs the hazard model (PUBLISH_SAMPLES samples, seed from the
- * exercise and solution), stores the assessment on the `solution.published` event, and revises the
- * released injects whose figures change. Exactly once per solution; again → 409.
- */
-export function publishSolution(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
-  const exercise = liveExercise(useDB(), exerciseId)
-  const entry = exercise.scenario.solutions.find(s => s.key === key)
-  if (!entry) throw notFound('No such solution in this exercise.')
-  const isPublished = (db: DB | Tx) => publishedSolutions(db, exerciseId).some(p => p.key === key)
-  if (isPublished(useDB())) throw conflict('This solution was already published.')
-  const seed = solutionSeed(exerciseId, key)
-  const assessment = assessSolution(entry.solution, exercise.scenario.sites, { samples: PUBLISH_SAMPLES, seed })
-  return liveWrite(exerciseId, (w) => {
-    if (w.exercise.status === 'ended') throw conflict('The exercise has ended.')
-    if (isPublished(w.tx)) throw conflict('This solution was already published.')
-    const event = w.append({
-      type: 'solution.published', audience: 'all', actorId: opts.actorId,
-      data: { key, label: entry.label, releaseAt: entry.releaseAt, manual: opts.manual, samples: PUBLISH_SAMPLES, seed, solution: entry.solution, assessment, headline: assessmentHeadline(assessment), drill: DRILL },
-    })
-    w.tx.insert(schema.exerciseSolutions).values({ exerciseId, solutionKey: key, seq: event.seq }).run()
-    remember(`${exerciseId}:${event.seq}`, assessment)
-    reviseReleased(w, publishedSolutions(w.tx, exerciseId))
-    return event
   })
 }

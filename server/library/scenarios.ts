@@ -1,18 +1,16 @@
 import { readFileSync, readdirSync, existsSync } from 'node:fs'
 import { basename, extname, resolve } from 'node:path'
 import { eq, like, or } from 'drizzle-orm'
-import { parseScenarioYaml, validateScenario } from '../../shared/scenario'
-import type { Scenario } from '../../shared/scenario'
-import type { ScenarioIssue } from '../../shared/scenario/io'
-import type { ScenarioRow, User } from '../../shared/types/db'
+import { parseScenarioYaml, validateScenario } from '#shared/scenario'
+import type { Scenario } from '#shared/scenario'
+import type { ScenarioIssue } from '#shared/scenario/io'
+import type { ScenarioRow, User } from '#shared/types/db'
+import { nextFreeKey } from '#shared/utils/keys'
+import { putBlob, sniffContentType } from './attachments'
 
 /** A 400 listing each problem of a scenario with its path (and line and column for a file). */
 export function scenarioInvalid(errors: Array<ScenarioIssue & { line?: number; column?: number }>, what = 'scenario'): never {
-  throw createError({
-    statusCode: 400,
-    message: `The ${what} has ${errors.length} problem${errors.length === 1 ? '' : 's'}; nothing was saved.`,
-    data: { issues: errors.slice(0, 200) },
-  })
+  throw invalidFields(errors.slice(0, 200), `The ${what} has ${errors.length} problem${errors.length === 1 ? '' : 's'}; nothing was saved.`)
 }
 
 /** The library list: what a facilitator needs to pick a scenario. */
@@ -34,17 +32,16 @@ export function summarise(row: ScenarioRow) {
 
 export function getScenarioRow(id: string): ScenarioRow {
   const row = useDB().select().from(schema.scenarios).where(eq(schema.scenarios.id, id)).get()
-  if (!row) throw createError({ statusCode: 404, message: 'No such scenario.' })
+  if (!row) throw notFound('No such scenario.')
   return row
 }
 
 /** A key not yet in the library: `base`, else `base-2`, `base-3`, … */
 export function freeKey(base: string): string {
   const stem = base.replace(/-\d+$/, '').slice(0, 56) || 'scenario'
-  const taken = new Set(useDB().select({ key: schema.scenarios.key }).from(schema.scenarios)
-    .where(or(eq(schema.scenarios.key, base), like(schema.scenarios.key, `${stem}%`))).all().map(r => r.key))
-  if (!taken.has(base)) return base
-  for (let n = 2; ; n++) if (!taken.has(`${stem}-${n}`)) return `${stem}-${n}`
+  const taken = useDB().select({ key: schema.scenarios.key }).from(schema.scenarios)
+    .where(or(eq(schema.scenarios.key, base), like(schema.scenarios.key, `${stem}%`))).all().map(r => r.key)
+  return nextFreeKey(base, taken, 'scenario')
 }
 
 export function keyTaken(key: string, exceptId?: string): boolean {
@@ -85,7 +82,7 @@ export function insertScenario(doc: Scenario, origin: ScenarioRow['origin'], by:
 /** Saves an edited document; the caller must name the revision it loaded (409 when it moved on). */
 export function saveScenario(row: ScenarioRow, value: unknown, revision: number, user: User): ScenarioRow {
   if (revision !== row.revision) {
-    throw createError({ statusCode: 409, message: 'Someone saved this scenario after you opened it. Reload to see their changes, then edit again.', data: { revision: row.revision } })
+    throw conflict('Someone saved this scenario after you opened it. Reload to see their changes, then edit again.', { revision: row.revision })
   }
   const checked = validateScenario(value)
   if (!checked.ok) scenarioInvalid(checked.errors)
@@ -105,7 +102,7 @@ export function importScenario(text: string, onConflict: 'refuse' | 'copy' | 're
   const doc = parsed.scenario
   const existing = useDB().select().from(schema.scenarios).where(eq(schema.scenarios.key, doc.key)).get()
   if (existing && onConflict === 'refuse') {
-    throw createError({ statusCode: 409, message: `The library already has a scenario with the key "${doc.key}". Import it as a copy, or replace the existing one.`, data: { issues: [{ path: 'key', message: 'already in the library' }], existingId: existing.id } })
+    throw conflict(`The library already has a scenario with the key "${doc.key}". Import it as a copy, or replace the existing one.`, { issues: [{ path: 'key', message: 'already in the library' }], existingId: existing.id })
   }
   if (existing && onConflict === 'replace') {
     const row = useDB().update(schema.scenarios)
@@ -138,7 +135,7 @@ export function duplicateScenario(row: ScenarioRow, user: User): ScenarioRow {
 }
 
 export function scenariosDir(): string {
-  return resolve(process.env.NUXT_SCENARIOS_DIR || useRuntimeConfig().scenariosDir)
+  return serverConfig().scenariosDir
 }
 
 /**

@@ -55,7 +55,7 @@ export async function getBlob(sha256: string): Promise<Buffer | null> {
 /** Sends a stored attachment with headers that keep the browser from running it. */
 export async function sendAttachment(event: H3Event, a: { name: string; contentType: string; sha256: string }) {
   const bytes = await getBlob(a.sha256)
-  if (!bytes) throw createError({ statusCode: 404, message: 'The file is missing from storage.' })
+  if (!bytes) throw notFound('The file is missing from storage.')
   const inline = a.contentType.startsWith('image/') || a.contentType === 'application/pdf'
   const type = a.contentType.startsWith('text/') ? `${a.contentType}; charset=utf-8` : a.contentType
   setResponseHeaders(event, {

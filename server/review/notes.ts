@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { HOTWASH_SECTIONS, type HotwashSection } from '../../shared/review/plan'
-import type { HotwashNote } from '../../shared/review/types'
+import { HOTWASH_SECTIONS, type HotwashSection } from '#shared/review/plan'
+import type { HotwashNote } from '#shared/review/types'
 
 /** Every hotwash section of an exercise, empty ones included (revision 0). */
 export function hotwashNotes(exerciseId: string): HotwashNote[] {
@@ -25,7 +25,7 @@ export function saveHotwash(exerciseId: string, section: HotwashSection, input: 
     const row = tx.select().from(schema.hotwashNotes).where(and(eq(schema.hotwashNotes.exerciseId, exerciseId), eq(schema.hotwashNotes.section, section))).get()
     const current = row?.revision ?? 0
     if (current !== input.revision) {
-      throw createError({ statusCode: 409, message: 'Someone saved this section after you opened it. Their text is shown; merge your changes and save again.', data: { body: row?.body ?? '', revision: current } })
+      throw conflict('Someone saved this section after you opened it. Their text is shown; merge your changes and save again.', { body: row?.body ?? '', revision: current })
     }
     if (row) return tx.update(schema.hotwashNotes).set({ body: input.body, revision: current + 1, updatedBy: actorId }).where(eq(schema.hotwashNotes.id, row.id)).returning().get()
     return tx.insert(schema.hotwashNotes).values({ exerciseId, section, body: input.body, revision: 1, updatedBy: actorId }).returning().get()

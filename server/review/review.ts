@@ -1,19 +1,11 @@
 import { eq } from 'drizzle-orm'
-import type { H3Event } from 'h3'
-import { decisionSummary } from '../../shared/review/decisions'
-import { eventFacets } from '../../shared/review/facets'
-import { scoringSummary } from '../../shared/review/scoring'
-import type { SolutionPublishedData, StoredEvent } from '../../shared/live/types'
-
-/** The review desk is read by the analyst, the facilitator and the evaluators (admins look in); players 403. */
-export async function requireReviewReader(event: H3Event, exerciseId: string) {
-  return requireExerciseRole(event, exerciseId, ['facilitator', 'analyst', 'evaluator'], { allowAdmin: true })
-}
-
-/** Findings, the improvement plan, hotwash notes and mailings are written by the analyst and the facilitator only. */
-export async function requireReviewWriter(event: H3Event, exerciseId: string) {
-  return requireExerciseRole(event, exerciseId, ['facilitator', 'analyst'])
-}
+import { decisionSummary } from '#shared/review/decisions'
+import { eventFacets } from '#shared/review/facets'
+import { scoringSummary } from '#shared/review/scoring'
+import type { SolutionPublishedData, StoredEvent } from '#shared/live/types'
+import { hasCapability } from '#shared/utils/permissions'
+import { clockNow, liveExercise, storedEvents } from '../live'
+import { exerciseTimeline } from './exports'
 
 /** The exercise with its frozen scenario, its whole record (control view) and the scenario time now. */
 export function reviewRecord(exerciseId: string) {
@@ -57,7 +49,7 @@ export function reviewOverview(exerciseId: string, access: ExerciseAccess) {
     timeline: rows.map(r => ({ ...r, teamKeys: facets.get(r.seq)?.teamKeys ?? [], phaseKey: facets.get(r.seq)?.phaseKey ?? null })),
     lastSeq: events.at(-1)?.seq ?? 0,
     role,
-    can: { write: role === 'analyst' || role === 'facilitator', export: role === 'analyst' || role === 'facilitator' || !access.membership },
+    can: { write: hasCapability(access.standing, 'review.write'), export: hasCapability(access.standing, 'review.export') },
   }
 }
 
@@ -90,9 +82,9 @@ export function replayRecord(exerciseId: string) {
 /** A published solution of the exercise with its stored assessment; 404 when it was not published. */
 export function publishedSolution(exerciseId: string, key: string) {
   const row = useDB().select().from(schema.exerciseSolutions).where(eq(schema.exerciseSolutions.exerciseId, exerciseId)).all().find(s => s.solutionKey === key)
-  if (!row) throw createError({ statusCode: 404, message: 'This solution was not published in this exercise.' })
+  if (!row) throw notFound('This solution was not published in this exercise.')
   const event = storedEvents(exerciseId, { kind: 'control' }, row.seq - 1, 1)[0]
   const d = event?.data as SolutionPublishedData | undefined
-  if (!d || event?.type !== 'solution.published') throw createError({ statusCode: 404, message: 'This solution was not published in this exercise.' })
+  if (!d || event?.type !== 'solution.published') throw notFound('This solution was not published in this exercise.')
   return { key: d.key, label: d.label, releaseAt: d.releaseAt, seq: event.seq, solution: d.solution, assessment: d.assessment, headline: d.headline }
 }

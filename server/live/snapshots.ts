@@ -1,7 +1,11 @@
-import { foldEvents, type Feed } from '../../shared/live/fold'
-import { injectState, phaseAt } from '../../shared/live/schedule'
-import { DRILL } from '../../shared/live/visibility'
-import type { LiveView } from '../../shared/live/types'
+import { foldEvents, type Feed } from '#shared/live/fold'
+import { injectState, phaseAt } from '#shared/live/schedule'
+import { DRILL } from '#shared/live/visibility'
+import type { LiveView } from '#shared/live/types'
+import { clockNow } from './clock'
+import { type InjectDef, injectRows } from './injects'
+import { latestSeq, liveExercise, visibleEvents } from './record'
+import type { LiveExercise } from './types'
 
 /** The control desk's schedule: every inject (scenario and ad-hoc) with its state and who answered. */
 function schedule(exercise: LiveExercise, feed: Feed, t: number) {

@@ -1,9 +1,12 @@
 import { randomBytes } from 'node:crypto'
 import { and, desc, eq, isNull } from 'drizzle-orm'
-import { phaseAt } from '../../shared/live/schedule'
-import { DRILL, rooms } from '../../shared/live/visibility'
-import { foldEvents } from '../../shared/live/fold'
-import type { WallSolutionData } from '../../shared/live/types'
+import { phaseAt } from '#shared/live/schedule'
+import { DRILL, rooms } from '#shared/live/visibility'
+import { foldEvents } from '#shared/live/fold'
+import type { WallSolutionData } from '#shared/live/types'
+import { clockNow } from './clock'
+import { useIO } from './realtime'
+import { latestSeq, liveExercise, visibleEvents } from './record'
 
 /** Creates a share link for the wall view; the token is returned once and only its hash is kept. */
 export function createWallToken(exerciseId: string, label: string, userId: string) {
@@ -23,7 +26,7 @@ export function listWallTokens(exerciseId: string) {
 export function revokeWallToken(exerciseId: string, tokenId: string, userId: string): void {
   const res = useDB().update(schema.wallTokens).set({ revokedAt: new Date() })
     .where(and(eq(schema.wallTokens.id, tokenId), eq(schema.wallTokens.exerciseId, exerciseId), isNull(schema.wallTokens.revokedAt))).run()
-  if (res.changes === 0) throw createError({ statusCode: 404, message: 'No such wall link.' })
+  if (res.changes === 0) throw notFound('No such wall link.')
   audit(userId, 'exercise.wall.revoke', exerciseId, { tokenId })
   useIO()?.in(rooms.wallToken(tokenId)).disconnectSockets(true)
 }

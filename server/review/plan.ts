@@ -1,16 +1,17 @@
 import { and, asc, eq, sql } from 'drizzle-orm'
-import type { Scenario } from '../../shared/scenario/schema'
-import { objectiveCapabilities } from '../../shared/review/capabilities'
-import type { FindingInput, ImprovementInput } from '../../shared/schemas/review'
-import { improvementMergedSchema } from '../../shared/schemas/review'
-import type { FieldIssue } from '../../shared/utils/issues'
-import type { Finding, ImprovementItem } from '../../shared/review/types'
-import { fieldIssues } from '../../shared/utils/issues'
+import type { Scenario } from '#shared/scenario/schema'
+import { objectiveCapabilities } from '#shared/review/capabilities'
+import type { FindingInput, ImprovementInput } from '#shared/schemas/review'
+import { improvementMergedSchema } from '#shared/schemas/review'
+import type { FieldIssue } from '#shared/utils/issues'
+import type { Finding, ImprovementItem } from '#shared/review/types'
+import { fieldIssues } from '#shared/utils/issues'
+import { liveExercise } from '../live'
 
 type FindingRow = typeof schema.exerciseFindings.$inferSelect
 type ItemRow = typeof schema.improvementItems.$inferSelect
 
-const invalid = (issues: FieldIssue[]) => createError({ statusCode: 400, message: 'Invalid request body: check the listed fields.', data: { issues } })
+const invalid = (issues: FieldIssue[]) => invalidFields(issues)
 
 /** 400 unless the objective is one of the scenario's and the capability one of that objective's. */
 function checkObjective(scenario: Scenario, input: { objectiveKey: string; capability: string }) {
@@ -38,7 +39,7 @@ export function listFindings(exerciseId: string) {
 function findingRow(exerciseId: string, findingId: string): FindingRow {
   const row = useDB().select().from(schema.exerciseFindings)
     .where(and(eq(schema.exerciseFindings.exerciseId, exerciseId), eq(schema.exerciseFindings.id, findingId))).get()
-  if (!row) throw createError({ statusCode: 404, message: 'No such finding in this exercise.' })
+  if (!row) throw notFound('No such finding in this exercise.')
   return row
 }
 
@@ -75,7 +76,7 @@ export function listImprovements(exerciseId: string) {
 function itemRow(exerciseId: string, itemId: string): ItemRow {
   const row = useDB().select().from(schema.improvementItems)
     .where(and(eq(schema.improvementItems.exerciseId, exerciseId), eq(schema.improvementItems.id, itemId))).get()
-  if (!row) throw createError({ statusCode: 404, message: 'No such item in this improvement plan.' })
+  if (!row) throw notFound('No such item in this improvement plan.')
   return row
 }
 

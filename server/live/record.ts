@@ -1,13 +1,11 @@
 import { and, asc, eq, gt, inArray, like, ne, or, sql } from 'drizzle-orm'
 import type { SQL } from 'drizzle-orm'
-import { scenarioTimeAt, clockBounds, type ClockBounds } from '../../shared/live/clock'
-import { canSee, rooms, sanitise, wallTypes } from '../../shared/live/visibility'
-import type { Audience, ClockState, EventDataMap, LiveEvent, LiveEventType, LiveView, StoredEvent } from '../../shared/live/types'
-import type { Scenario } from '../../shared/scenario/schema'
-import type { Exercise, Membership } from '../../shared/types/db'
-
-/** A Drizzle transaction on the one SQLite connection. */
-export type Tx = Parameters<Parameters<DB['transaction']>[0]>[0]
+import { scenarioTimeAt, clockBounds, type ClockBounds } from '#shared/live/clock'
+import { canSee, rooms, sanitise, wallTypes } from '#shared/live/visibility'
+import type { Audience, ClockState, EventDataMap, LiveEvent, LiveEventType, LiveView, StoredEvent } from '#shared/live/types'
+import { readClock } from './clock'
+import { useIO } from './realtime'
+import type { LiveExercise } from './types'
 
 export interface NewEvent<T extends LiveEventType = LiveEventType> {
   type: T
@@ -18,8 +16,6 @@ export interface NewEvent<T extends LiveEventType = LiveEventType> {
   /** Defaults to the scenario time of the write. */
   scenarioTime?: number
 }
-
-export type LiveExercise = Exercise & { scenario: Scenario }
 
 /** What a service sees inside `liveWrite`: the transaction, the exercise and its clock at the time of the write. */
 export interface LiveWriter {
@@ -38,17 +34,9 @@ export interface LiveWriter {
 /** An exercise with its frozen scenario; 404 when missing, 409 when it has no scenario. */
 export function liveExercise(db: DB | Tx, exerciseId: string): LiveExercise {
   const exercise = db.select().from(schema.exercises).where(eq(schema.exercises.id, exerciseId)).get()
-  if (!exercise) throw createError({ statusCode: 404, message: 'No such exercise.' })
-  if (!exercise.scenario) throw createError({ statusCode: 409, message: 'This exercise has no scenario to play.' })
+  if (!exercise) throw notFound('No such exercise.')
+  if (!exercise.scenario) throw conflict('This exercise has no scenario to play.')
   return exercise as LiveExercise
-}
-
-/** The reader view of a membership; an admin without a drill role reads as an evaluator. */
-export function viewOf(membership: Pick<Membership, 'role' | 'teamKey'> | null): LiveView {
-  if (!membership) return { kind: 'evaluator' }
-  if (membership.role === 'facilitator') return { kind: 'control' }
-  if (membership.role === 'player') return { kind: 'player', teamKey: membership.teamKey ?? '' }
-  return { kind: 'evaluator' }
 }
 
 /** The SQL condition for the events a view may read (the same rule as `canSee`). */
@@ -110,7 +98,7 @@ export function findIdempotent(tx: Tx, exerciseId: string, actorId: string, key:
     eq(schema.exerciseEvents.exerciseId, exerciseId), eq(schema.exerciseEvents.actorId, actorId), eq(schema.exerciseEvents.idempotencyKey, key),
   )).get()
   if (!row) return null
-  if (row.type !== type) throw createError({ statusCode: 409, message: 'This idempotency key was already used for another write.', data: { issues: [{ path: 'idempotencyKey', message: 'already used' }] } })
+  if (row.type !== type) throw conflict('This idempotency key was already used for another write.', { issues: [{ path: 'idempotencyKey', message: 'already used' }] })
   return toStored(row)
 }
 

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import type { Exercise, ScenarioRow, User } from '../../shared/types/db'
-import type { ExerciseRole } from '../../shared/utils/roles'
+import type { Exercise, ScenarioRow, User } from '#shared/types/db'
+import type { ExerciseRole } from '#shared/utils/roles'
 
 /** The exercises a user belongs to, with the role and team held in each. */
 export function listMemberships(userId: string) {
@@ -40,14 +40,14 @@ export function checkTeam(exercise: Exercise, role: ExerciseRole, teamKey: strin
   if (role !== 'player') return null
   const teams = exercise.scenario?.teams.map(t => t.key) ?? []
   if (!teamKey || !teams.includes(teamKey)) {
-    throw createError({ statusCode: 400, message: 'Choose one of the exercise\'s teams.', data: { issues: [{ path: 'teamKey', message: `unknown team "${teamKey ?? ''}" (teams: ${teams.join(', ') || 'none'})` }] } })
+    throw invalidFields([{ path: 'teamKey', message: `unknown team "${teamKey ?? ''}" (teams: ${teams.join(', ') || 'none'})` }], 'Choose one of the exercise\'s teams.')
   }
   return teamKey
 }
 
 export function getExercise(id: string): Exercise {
   const exercise = useDB().select().from(schema.exercises).where(eq(schema.exercises.id, id)).get()
-  if (!exercise) throw createError({ statusCode: 404, message: 'No such exercise.' })
+  if (!exercise) throw notFound('No such exercise.')
   return exercise
 }
 
@@ -56,5 +56,5 @@ export function assertFacilitatorRemains(exerciseId: string, leavingUserId: stri
   const others = useDB().select({ userId: schema.memberships.userId }).from(schema.memberships)
     .where(and(eq(schema.memberships.exerciseId, exerciseId), eq(schema.memberships.role, 'facilitator'))).all()
     .filter(m => m.userId !== leavingUserId)
-  if (others.length === 0) throw createError({ statusCode: 409, message: 'An exercise needs at least one facilitator.' })
+  if (others.length === 0) throw conflict('An exercise needs at least one facilitator.')
 }

@@ -1,0 +1,62 @@
+import { createHash } from 'node:crypto'
+import { and, asc, eq } from 'drizzle-orm'
+import { assessSolution } from '#shared/hazard/assess'
+import { assessmentHeadline, hasHazardFields } from '#shared/live/headline'
+import { DRILL, teamsAudience } from '#shared/live/visibility'
+import { type Published, publishedSolutions, rememberAssessment } from './assessments'
+import { injectDef, renderInject } from './injects'
+import { liveExercise, liveWrite, type LiveWriter } from './record'
+
+/** Samples of every published assessment (20 000 keeps the 5/50/95 percentiles steady from run to run). */
+export const PUBLISH_SAMPLES = 20_000
+
+/** The deterministic Monte Carlo seed of a solution in an exercise (31 bits of SHA-256 of "<exercise id>:<solution key>"). */
+export function solutionSeed(exerciseId: string, solutionKey: string): number {
+  return createHash('sha256').update(`${exerciseId}:${solutionKey}`).digest().readUInt32BE(0) >>> 1
+}
+
+/** Re-renders released injects against the published solutions; appends `inject.revised` where the text changed. */
+function reviseReleased(w: LiveWriter, published: readonly Published[]) {
+  const allTeams = w.exercise.scenario.teams.map(t => t.key)
+  const rows = w.tx.select().from(schema.exerciseInjects)
+    .where(and(eq(schema.exerciseInjects.exerciseId, w.exercise.id), eq(schema.exerciseInjects.status, 'released'))).orderBy(asc(schema.exerciseInjects.releasedSeq)).all()
+  for (const row of rows) {
+    const def = injectDef(w.exercise, row.injectKey, row)
+    if (!def || !hasHazardFields(def.body)) continue
+    const next = renderInject(w.tx, w.exercise.id, def, published)
+    if (next.solutionKey === row.solutionKey || next.body === row.body) continue
+    const revision = row.revision + 1
+    w.tx.update(schema.exerciseInjects).set({ body: next.body, solutionKey: next.solutionKey, revision }).where(eq(schema.exerciseInjects.id, row.id)).run()
+    w.append({
+      type: 'inject.revised', audience: teamsAudience(def.teams, allTeams),
+      data: { key: row.injectKey, teams: def.teams, revision, body: next.body, solutionKey: next.solutionKey, previousSolutionKey: row.solutionKey, drill: DRILL },
+    })
+  }
+}
+
+/**
+ * Publishes an orbit solution: runs the hazard model (PUBLISH_SAMPLES samples, seed from the
+ * exercise and solution), stores the assessment on the `solution.published` event, and revises the
+ * released injects whose figures change. Exactly once per solution; again → 409.
+ */
+export function publishSolution(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
+  const exercise = liveExercise(useDB(), exerciseId)
+  const entry = exercise.scenario.solutions.find(s => s.key === key)
+  if (!entry) throw notFound('No such solution in this exercise.')
+  const isPublished = (db: DB | Tx) => publishedSolutions(db, exerciseId).some(p => p.key === key)
+  if (isPublished(useDB())) throw conflict('This solution was already published.')
+  const seed = solutionSeed(exerciseId, key)
+  const assessment = assessSolution(entry.solution, exercise.scenario.sites, { samples: PUBLISH_SAMPLES, seed })
+  return liveWrite(exerciseId, (w) => {
+    if (w.exercise.status === 'ended') throw exerciseEnded()
+    if (isPublished(w.tx)) throw conflict('This solution was already published.')
+    const event = w.append({
+      type: 'solution.published', audience: 'all', actorId: opts.actorId,
+      data: { key, label: entry.label, releaseAt: entry.releaseAt, manual: opts.manual, samples: PUBLISH_SAMPLES, seed, solution: entry.solution, assessment, headline: assessmentHeadline(assessment), drill: DRILL },
+    })
+    w.tx.insert(schema.exerciseSolutions).values({ exerciseId, solutionKey: key, seq: event.seq }).run()
+    rememberAssessment(`${exerciseId}:${event.seq}`, assessment)
+    reviseReleased(w, publishedSolutions(w.tx, exerciseId))
+    return event
+  })
+}

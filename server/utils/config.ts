@@ -1,0 +1,47 @@
+import { dirname, resolve } from 'node:path'
+
+/** The server's settings: runtimeConfig (nuxt.config.ts, overridden by NUXT_* environment variables), read once and typed. */
+export interface ServerConfig {
+  dbFile: string
+  migrationsDir: string
+  scenariosDir: string
+  attachmentsDir: string
+  seedDemo: boolean
+  demoPassword: string
+  appUrl: string
+  /** Served over HTTPS: the session cookie is marked Secure. */
+  secureCookies: boolean
+  /** Behind a reverse proxy: client address and host come from X-Forwarded-*. */
+  trustProxy: boolean
+  redisUrl: string
+  schedulerIntervalMs: number
+  schedulerLeaseMs: number
+}
+
+// NUXT_* values arrive parsed ("1" → 1, "true" → true).
+const flag = (v: unknown) => v === true || v === 1 || v === '1' || v === 'true'
+
+let config: ServerConfig | undefined
+
+export function serverConfig(): ServerConfig {
+  if (config) return config
+  const c = useRuntimeConfig()
+  const dbFile = resolve(String(c.dbPath))
+  const appUrl = String(c.appUrl)
+  config = {
+    dbFile,
+    migrationsDir: resolve(String(c.migrationsDir)),
+    scenariosDir: resolve(String(c.scenariosDir)),
+    attachmentsDir: resolve(String(c.attachmentsDir || '') || resolve(dirname(dbFile), 'attachments')),
+    seedDemo: flag(c.seedDemo),
+    // DEMO_PASSWORD: the older name of NUXT_DEMO_PASSWORD, still honoured.
+    demoPassword: process.env.DEMO_PASSWORD || String(c.demoPassword),
+    appUrl,
+    secureCookies: flag(c.secureCookies) || /^https:/i.test(appUrl),
+    trustProxy: flag(c.trustProxy),
+    redisUrl: String(c.redisUrl || ''),
+    schedulerIntervalMs: Number(c.schedulerIntervalMs) || 250,
+    schedulerLeaseMs: Number(c.schedulerLeaseMs) || 3000,
+  }
+  return config
+}

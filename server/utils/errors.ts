@@ -1,0 +1,39 @@
+import { H3Error } from 'h3'
+import type { FieldIssue } from '#shared/utils/issues'
+
+/** What went wrong in a service, independent of HTTP. */
+export type DomainErrorKind = 'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'ended'
+
+/** The one place where domain errors become HTTP statuses (an ended drill refuses writes as a conflict). */
+export const HTTP_STATUS_OF: Record<DomainErrorKind, number> = { 'invalid': 400, 'forbidden': 403, 'not-found': 404, 'conflict': 409, 'ended': 409 }
+
+/**
+ * A service's refusal. It is an H3Error, so a route that lets it through answers with the mapped
+ * status, the message and `data`; code that handles it (the scheduler) reads `kind`, not a status.
+ */
+export class DomainError extends H3Error<Record<string, unknown> | undefined> {
+  readonly kind: DomainErrorKind
+  constructor(kind: DomainErrorKind, message: string, data?: Record<string, unknown>) {
+    super(message)
+    this.kind = kind
+    this.statusCode = HTTP_STATUS_OF[kind]
+    this.data = data
+  }
+}
+
+export const isDomainError = (err: unknown, ...kinds: DomainErrorKind[]): err is DomainError =>
+  err instanceof DomainError && (kinds.length === 0 || kinds.includes(err.kind))
+
+/** The caller's role does not allow this. */
+export const forbidden = (message: string) => new DomainError('forbidden', message)
+/** No such thing (or not one the caller may see). */
+export const notFound = (message: string) => new DomainError('not-found', message)
+/** The thing is in another state than the request assumes (already done, edited meanwhile, taken). */
+export const conflict = (message: string, data?: Record<string, unknown>) => new DomainError('conflict', message, data)
+/** The drill is over: nothing more is written to its record. */
+export const exerciseEnded = () => new DomainError('ended', 'The exercise has ended.')
+/** A request that names something the service rejects, with a path per problem. */
+export const invalidFields = (issues: FieldIssue[], message = 'Invalid request body: check the listed fields.') =>
+  new DomainError('invalid', message, { issues })
+/** One rejected field. */
+export const badField = (path: string, message: string) => invalidFields([{ path, message }])
