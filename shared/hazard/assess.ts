@@ -49,7 +49,7 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
   const S = drawSamples(solution, opts.samples, opts.seed, opts.strengthModel, ws.S)
   const n = S.n
   const work = ws.w
-  const results: SiteResult[] = sites.map((site) => evaluateSite(site, S, work))
+  const results: SiteResult[] = sites.map(site => evaluateSite(site, S, work))
   const exposedPopulation = {} as Record<ThresholdKey, number>
   for (const t of THRESHOLDS) exposedPopulation[t.key] = results.reduce((sum, r) => sum + r.assessment.population * r.assessment.exceedance[t.key], 0)
 
@@ -71,9 +71,9 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
     tsunamiProbability: tsu / n,
     surfaceEnergyMt: percentiles(S.surfaceEnergyMt, n),
     airEnergyMt: percentiles(S.airEnergyMt, n),
-    tsunamiSourceLaws: TSUNAMI_SOURCE_LAWS.map((l) => ({ ...l })),
+    tsunamiSourceLaws: TSUNAMI_SOURCE_LAWS.map(l => ({ ...l })),
     waterCavityDiameterM: tsu > 0 ? percentiles(gather(S, S.cavityM, FLAG_TSUNAMI, tsu), tsu) : null,
-    sites: results.map((r) => r.assessment),
+    sites: results.map(r => r.assessment),
     exposedPopulation,
     torino: torinoScale({ probability: solution.impactProbability, energyMt: energyMt.p50 }),
     // Floored at −20 so that a zero probability stays a finite JSON number.

@@ -40,7 +40,8 @@ export function corridorGeometry(path: readonly LonLat[], nominal: LonLat): Corr
     let ux = b[0]! - d * a[0]!, uy = b[1]! - d * a[1]!, uz = b[2]! - d * a[2]!
     const un = Math.hypot(ux, uy, uz)
     const len = Math.acos(Math.min(1, Math.max(-1, d))) * EARTH_RADIUS_M
-    if (un < 1e-12) { ux = 0; uy = 0; uz = 0 } else { ux /= un; uy /= un; uz /= un }
+    if (un < 1e-12) { ux = 0; uy = 0; uz = 0 }
+    else { ux /= un; uy /= un; uz /= un }
     const f = 9 * k
     frames[f] = a[0]!; frames[f + 1] = a[1]!; frames[f + 2] = a[2]!
     frames[f + 3] = ux; frames[f + 4] = uy; frames[f + 5] = uz

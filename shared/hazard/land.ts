@@ -55,8 +55,8 @@ function load(): LandData {
   const ex0 = new Float64Array(m), ey0 = new Float64Array(m), ex1 = new Float64Array(m), ey1 = new Float64Array(m)
   for (let k = 0; k < m; k++) { ex0[k] = xs[4 * k]!; ey0[k] = xs[4 * k + 1]!; ex1[k] = xs[4 * k + 2]!; ey1[k] = xs[4 * k + 3]! }
   const [tileStart, tileEdges] = bucket(m, TILE_COLS * TILE_ROWS, (k, add) => {
-    forRange(ex0[k]!, ex1[k]!, -180, TILE_DEG, TILE_COLS, (tx) =>
-      forRange(ey0[k]!, ey1[k]!, -90, TILE_DEG, TILE_ROWS, (ty) => add(ty * TILE_COLS + tx)))
+    forRange(ex0[k]!, ex1[k]!, -180, TILE_DEG, TILE_COLS, tx =>
+      forRange(ey0[k]!, ey1[k]!, -90, TILE_DEG, TILE_ROWS, ty => add(ty * TILE_COLS + tx)))
   })
   data = { polygons, ex0, ey0, ex1, ey1, tileStart, tileEdges, tiles: [], stamp: new Int32Array(m), stampNow: 0 }
   return data
@@ -132,8 +132,8 @@ function buildTile(d: LandData, ti: number): Tile {
   const ids = d.tileEdges.subarray(d.tileStart[ti]!, d.tileStart[ti + 1]!)
   const [cellStart, cellEdges] = bucket(ids.length, N * N, (j, add) => {
     const k = ids[j]!
-    forRange(d.ex0[k]!, d.ex1[k]!, x0, CELL_DEG, N, (ix) =>
-      forRange(d.ey0[k]!, d.ey1[k]!, y0, CELL_DEG, N, (iy) => add(iy * N + ix)))
+    forRange(d.ex0[k]!, d.ex1[k]!, x0, CELL_DEG, N, ix =>
+      forRange(d.ey0[k]!, d.ey1[k]!, y0, CELL_DEG, N, iy => add(iy * N + ix)))
   }, ids)
   const t: Tile = { cellStart, cellEdges, status: new Uint8Array(N * N) }
   const cx = (c: number) => x0 + ((c % N) + 0.5) * CELL_DEG

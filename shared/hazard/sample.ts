@@ -150,7 +150,8 @@ export function drawSamples(solution: OrbitSolution, n: number, seed: number, st
       R[o + REC.rm] = machOnsetScaledM(z1) * s
       R[o + REC.p0] = 3.14e11 * Math.exp(-2.6 * lz)
       R[o + REC.beta] = 34.87 * Math.exp(-1.73 * lz) / s
-    } else {
+    }
+    else {
       R[o + REC.rm] = 0
       R[o + REC.p0] = 0
       R[o + REC.beta] = 0

@@ -104,11 +104,11 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   // Wind thresholds become overpressures (the wind law is monotone).
   const levels = (k: 'p' | 'th' | 'run') => THRESHOLDS
     .map((t, idx) => ({ idx, v: t.kind === 'wind' ? windThresholdPa(t.value) : t.value, k: t.kind === 'thermal' ? 'th' : t.kind === 'runUp' ? 'run' : 'p' }))
-    .filter((t) => t.k === k).sort((a, b) => a.v - b.v)
+    .filter(t => t.k === k).sort((a, b) => a.v - b.v)
   const P = levels('p'), TH = levels('th'), RU = levels('run')
-  const pv = Float64Array.from(P, (t) => t.v), tv = Float64Array.from(TH, (t) => t.v)
+  const pv = Float64Array.from(P, t => t.v), tv = Float64Array.from(TH, t => t.v)
   // Run-up thresholds as toe heights (run-up is non-decreasing in the toe height), so the loop needs no run-up.
-  const rv = Float64Array.from(RU, (t) => coast ? coast.toeFor(t.v) : Infinity)
+  const rv = Float64Array.from(RU, t => coast ? coast.toeFor(t.v) : Infinity)
   const pHits = new Float64Array(P.length + 1), tHits = new Float64Array(TH.length + 1), rHits = new Float64Array(RU.length + 1)
   const nP = pv.length, nTv = tv.length, nR = rv.length
   const { dist, op, th, mag, amp, toe, ampLo, toeLo, ampHi, toeHi, t1, t2 } = w
@@ -241,11 +241,11 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   // Run-up percentiles are those of the toe height mapped through the site's non-decreasing run-up law.
   const runUpPct = (x: Float64Array) => { orderStats(x, m, o, n - m, hLo, hHi); return toPercentiles(o, runUpOf) }
   orderStats(op, n, o, 0, pLo, pHi)
-  const overpressureKPa = toPercentiles(o, (v) => v / 1000)
+  const overpressureKPa = toPercentiles(o, v => v / 1000)
   const windMS = toPercentiles(o, peakWindMS)
   const distanceKm = pct(dist, n, 0, dLo, dHi)
   // When every realisation makes a tsunami, the first arrival is a monotone map of the distance: reuse its order statistics.
-  const firstArrival = mt === n ? toPercentiles(o, (km) => km * 1000 * invCLong60) : mt > 0 ? pct(t1, mt, 0, t1Lo, t1Hi) : zero
+  const firstArrival = mt === n ? toPercentiles(o, km => km * 1000 * invCLong60) : mt > 0 ? pct(t1, mt, 0, t1Lo, t1Hi) : zero
   const assessment: SiteAssessment = {
     siteId: site.id,
     name: site.name,

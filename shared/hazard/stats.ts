@@ -43,7 +43,8 @@ function selectRanks(x: Float64Array, n: number, ranks: readonly number[], vals:
     // Bounds known to the caller: their keys bound every key (the key is monotone), no pass needed.
     kMin = keyOf(lo)
     kMax = keyOf(hi)
-  } else {
+  }
+  else {
     for (let i = 0; i < n; i++) {
       const k = key(words[2 * i + HI]!)
       if (k < kMin) kMin = k
@@ -119,7 +120,7 @@ export function orderStats(x: Float64Array, n: number, out: Float64Array, zeros 
   const vals: number[] = [0, 0, 0, 0, 0, 0]
   let j = 0
   while (j < 6 && ranks[j]! < zeros) j++
-  if (j < 6) selectRanks(x, n, ranks.slice(j).map((r) => r - zeros), vals, j, 0, lo, hi)
+  if (j < 6) selectRanks(x, n, ranks.slice(j).map(r => r - zeros), vals, j, 0, lo, hi)
   for (let q = 0; q < 3; q++) {
     out[3 * q] = vals[2 * q]!
     out[3 * q + 1] = vals[2 * q + 1]!
@@ -128,7 +129,7 @@ export function orderStats(x: Float64Array, n: number, out: Float64Array, zeros 
 }
 
 /** Percentiles from order statistics, through a monotone non-decreasing map f (identity by default). */
-export function toPercentiles(o: Float64Array, f: (v: number) => number = (v) => v): Percentiles {
+export function toPercentiles(o: Float64Array, f: (v: number) => number = v => v): Percentiles {
   const at = (q: number) => {
     const a = f(o[3 * q]!), fr = o[3 * q + 2]!
     return fr === 0 ? a : a + fr * (f(o[3 * q + 1]!) - a)
@@ -140,5 +141,5 @@ export function toPercentiles(o: Float64Array, f: (v: number) => number = (v) =>
 export function percentiles(x: Float64Array, n: number = x.length, scale = 1): Percentiles {
   const o = new Float64Array(9)
   orderStats(x, n, o)
-  return toPercentiles(o, scale === 1 ? undefined : (v) => v * scale)
+  return toPercentiles(o, scale === 1 ? undefined : v => v * scale)
 }

@@ -7,9 +7,9 @@
 import { THRESHOLDS } from '../hazard/types'
 import type { Assessment, Percentiles, SiteAssessment } from '../hazard/types'
 
-export type Dimension =
-  | 'energy' | 'length' | 'mass' | 'pressure' | 'speed' | 'thermal' | 'time'
-  | 'magnitude' | 'probability' | 'people' | 'torino' | 'palermo' | 'text'
+export type Dimension
+  = | 'energy' | 'length' | 'mass' | 'pressure' | 'speed' | 'thermal' | 'time'
+    | 'magnitude' | 'probability' | 'people' | 'torino' | 'palermo' | 'text'
 
 /** Units a figure may be shown in (after `|`), with their size in a common base per dimension. */
 export const UNITS: Record<Dimension, Record<string, number>> = {
@@ -20,7 +20,7 @@ export const UNITS: Record<Dimension, Record<string, number>> = {
   speed: { 'm/s': 1, 'km/h': 1 / 3.6 },
   thermal: { 'MJ/m2': 1 },
   time: { min: 1, h: 60 },
-  probability: { '%': 1, odds: 1 },
+  probability: { '%': 1, 'odds': 1 },
   people: { people: 1 },
   magnitude: {},
   torino: {},
@@ -126,7 +126,8 @@ function distributions(prefix: string, group: HazardFieldSpec['group'], table: R
 
 function scalars(prefix: string, group: HazardFieldSpec['group'], table: Record<string, Meta>): HazardFieldSpec[] {
   return Object.entries(table).map(([key, meta]) => {
-    const shape: FieldShape = meta.dimension === 'probability' ? 'probability'
+    const shape: FieldShape = meta.dimension === 'probability'
+      ? 'probability'
       : meta.dimension === 'people' ? 'count' : meta.dimension === 'text' ? 'text' : 'scale'
     return spec(`${prefix}${key}`, group, shape, meta)
   })

@@ -127,7 +127,8 @@ export function checkScenario(s: Scenario): CheckIssue[] {
     const firstField = findHazardFields(inject.body)[0]
     if (firstField && s.solutions.length && !currentSolutionAt(s.solutions, inject.at) && !Number.isNaN(at)) {
       add([...path, 'body'], `hazard field "${firstField.path}" before any orbit solution is released (the first is released at ${s.solutions[0]?.releaseAt})`, firstField.start)
-    } else if (firstField && !s.solutions.length) {
+    }
+    else if (firstField && !s.solutions.length) {
       add([...path, 'body'], `hazard field "${firstField.path}" but the scenario has no orbit solutions`, firstField.start)
     }
   })

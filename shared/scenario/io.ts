@@ -14,9 +14,9 @@ export interface ScenarioIssue { path: string; message: string }
 export interface ScenarioError extends ScenarioIssue { line: number; column: number }
 
 export type ValidateResult = { ok: true; scenario: Scenario } | { ok: false; errors: ScenarioIssue[] }
-export type ParseResult =
-  | { ok: true; scenario: Scenario; document: Document.Parsed }
-  | { ok: false; errors: ScenarioError[] }
+export type ParseResult
+  = | { ok: true; scenario: Scenario; document: Document.Parsed }
+    | { ok: false; errors: ScenarioError[] }
 
 type Segment = string | number
 
@@ -57,7 +57,8 @@ function utf8Bytes(text: string): number {
     const c = text.charCodeAt(i)
     if (c < 0x80) n += 1
     else if (c < 0x800) n += 2
-    else if (c >= 0xd800 && c < 0xdc00) { n += 4; i++ } else n += 3
+    else if (c >= 0xd800 && c < 0xdc00) { n += 4; i++ }
+    else n += 3
   }
   return n
 }
@@ -104,9 +105,11 @@ function locate(doc: Document.Parsed, text: string, issue: RawIssue, lc: LineCou
         break
       }
       node = pair.value
-    } else if (isSeq(parent) && typeof seg === 'number' && parent.items[seg] !== undefined) {
+    }
+    else if (isSeq(parent) && typeof seg === 'number' && parent.items[seg] !== undefined) {
       node = parent.items[seg]
-    } else { exact = false; break }
+    }
+    else { exact = false; break }
     const range = (node as YamlNode | null)?.range
     if (range) at = range[0]
   }
@@ -141,7 +144,8 @@ export function parseScenarioYaml(text: string): ParseResult {
   let value: unknown
   try {
     value = doc.toJS({ maxAliasCount: MAX_YAML_ALIASES })
-  } catch (e) {
+  }
+  catch (e) {
     let first = 0
     visit(doc, { Alias(_, node) { first = node.range?.[0] ?? 0; return visit.BREAK } })
     const pos = lc.linePos(first)

@@ -12,7 +12,6 @@ import { scenarioTimeSchema } from './time'
 /** A stable key: lower-case letters, digits and dashes, as site ids. */
 export const keySchema = z.string().regex(/^[a-z0-9][a-z0-9-]{0,62}$/, 'lower-case letters, digits and dashes (max 63)')
 
-
 const text = (max: number) => z.string().max(max).regex(/\S/, 'must not be empty')
 
 export const objectiveSchema = z.strictObject({

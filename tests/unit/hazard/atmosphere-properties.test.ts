@@ -125,7 +125,8 @@ describe('airblast: one law, non-increasing with range, continuous in burst heig
       if (r > 0) {
         expect(overpressurePa({ ...b, groundRangeM: r * 0.999 })).toBeGreaterThanOrEqual(thr)
         expect(overpressurePa({ ...b, groundRangeM: r * 1.01 })).toBeLessThan(thr)
-      } else expect(overpressurePa({ ...b, groundRangeM: 0 })).toBeLessThan(thr)
+      }
+      else expect(overpressurePa({ ...b, groundRangeM: 0 })).toBeLessThan(thr)
     }), { ...RUNS, numRuns: 300 })
   })
 })

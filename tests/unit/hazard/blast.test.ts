@@ -48,5 +48,4 @@ describe('airblast (Collins, Melosh & Marcus 2005, MAPS 40(6), after Glasstone &
       expect(Math.abs(collins / hg - 1)).toBeLessThan(0.2)
     }
   })
-
 })

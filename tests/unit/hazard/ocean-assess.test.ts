@@ -54,14 +54,14 @@ describe('the tsunami in the assessment', () => {
     // Main-wave arrival at the group speed of lambda = 2 D_tcw, after the long-wave arrival.
     expect(a.sites[0]!.tsunamiMainArrivalMin.p50 / (a.sites[0]!.distanceKm.p50 * 1000 / at(0).mainWaveSpeedMS / 60)).toBeCloseTo(1, 4)
     expect(a.sites[0]!.tsunamiMainArrivalMin.p5).toBeGreaterThanOrEqual(a.sites[0]!.tsunamiArrivalMin.p95)
-    expect(a.tsunamiSourceLaws?.map((l) => l.key)).toEqual(['low', 'high'])
-    expect(a.warnings.find((w) => w.code === 'tsunami-indicative')?.message).toMatch(/Ward & Asphaug 2000.*band/)
+    expect(a.tsunamiSourceLaws?.map(l => l.key)).toEqual(['low', 'high'])
+    expect(a.warnings.find(w => w.code === 'tsunami-indicative')?.message).toMatch(/Ward & Asphaug 2000.*band/)
   })
 
   it('keeps the band ordered (low <= high) at every site of an uncertain solution', () => {
     const s = fixedSolution({ magnitude: { H: 20.5, sigma: 0.5 }, entrySpeedKmS: { mean: 20, sigma: 4 }, entryAngleDeg: undefined,
       corridor: { path: [[-31, 35], [-29, 35]], halfWidthKm: 30, nominal: [-30, 35], alongTrackSigmaKm: 60 } })
-    const sites = [10, 100, 1000, 4000].map((km) => siteNorth(km))
+    const sites = [10, 100, 1000, 4000].map(km => siteNorth(km))
     const a = assessSolution(s, sites, { samples: 3000, seed: 3 })
     for (const site of a.sites) {
       const b = site.tsunamiBand!
@@ -100,7 +100,8 @@ describe('an airburst over the sea against a surface impact (Berger & Goodman 20
   const air: number[] = [], impact: number[] = [], lowAir: number[] = []
   for (let i = 0; i < S.n; i++) {
     if (!(S.flags[i]! & FLAG_SEA)) continue
-    if (S.flags[i]! & FLAG_AIRBURST) { air.push(i); if (S.burstAltM[i]! < 1000) lowAir.push(i) } else impact.push(i)
+    if (S.flags[i]! & FLAG_AIRBURST) { air.push(i); if (S.burstAltM[i]! < 1000) lowAir.push(i) }
+    else impact.push(i)
   }
   const mean = (ix: number[], x: Float64Array) => ix.reduce((t, i) => t + x[i]!, 0) / Math.max(1, ix.length)
 
@@ -140,7 +141,7 @@ describe('an airburst over the sea against a surface impact (Berger & Goodman 20
 describe('water depth', () => {
   it('names the 100 m it assumes when the solution gives 0 m and points fall in the sea', () => {
     const a = assessSolution(fixedSolution({ waterDepthM: 0 }), [siteNorth(100)], { samples: 500, seed: 1 })
-    const w = a.warnings.find((x) => x.code === 'depth-assumed')
+    const w = a.warnings.find(x => x.code === 'depth-assumed')
     expect(w?.fraction).toBe(1)
     expect(w?.message).toMatch(/100 m/)
     expect(OCEAN.tsunamiMinAmplitudeM).toBeGreaterThan(0)
@@ -150,7 +151,7 @@ describe('water depth', () => {
     const atSea = MINI_YAML.replace('waterDepthM: 1000', 'waterDepthM: 0')
     const r = parseScenarioYaml(atSea)
     expect(r.ok).toBe(false)
-    if (!r.ok) expect(r.errors.some((e) => e.path === 'solutions[0].solution.waterDepthM' && /at sea/.test(e.message))).toBe(true)
+    if (!r.ok) expect(r.errors.some(e => e.path === 'solutions[0].solution.waterDepthM' && /at sea/.test(e.message))).toBe(true)
     const onLand = atSea.replace('nominal: [-9.5, 39.5]', 'nominal: [-8, 40]')
     expect(parseScenarioYaml(onLand).ok).toBe(true)
   })
@@ -158,6 +159,6 @@ describe('water depth', () => {
   it('refuses shore-profile fields on an inland site', () => {
     const r = parseScenarioYaml(MINI_YAML.replace('offshoreDepthM: 30, beachSlopeDeg: 2', 'shelfWidthKm: 12'))
     expect(r.ok).toBe(false)
-    if (!r.ok) expect(r.errors.some((e) => e.path === 'sites[0].shelfWidthKm')).toBe(true)
+    if (!r.ok) expect(r.errors.some(e => e.path === 'sites[0].shelfWidthKm')).toBe(true)
   })
 })
