@@ -30,7 +30,7 @@ function windThresholdPa(u: number): number {
 const O_S = REC.s, O_LNS = REC.lnS, O_Z1 = REC.z1, O_RM = REC.rm, O_P0 = REC.p0, O_BETA = REC.beta, O_ALT = REC.alt
 const O_THK = REC.thK, O_ZB = REC.zb, O_RF = REC.rf, O_BURN = REC.burn, O_MAG = REC.mag
 const O_RIMA = REC.rimA, O_RIMR = REC.rimR, O_RIMLO = REC.rimLo, O_RIMHI = REC.rimHi, O_INVC60 = REC.invC60, O_LAMU = REC.lamU
-const REC_SIZE = REC.size, F_TSUNAMI = FLAG_TSUNAMI
+const REC_SIZE = REC.size, F_TSUNAMI = FLAG_TSUNAMI, R_E = EARTH_RADIUS_M
 
 /**
  * A site's shore profile for an open-ocean depth, with the toe heights that reach given run-ups, kept
@@ -126,7 +126,7 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
     let dot = Rc[o]! * sx + Rc[o + 1]! * sy + Rc[o + 2]! * sz
     if (dot > 1) dot = 1
     else if (dot < -1) dot = -1
-    let r = Math.acos(dot) * EARTH_RADIUS_M
+    let r = Math.acos(dot) * R_E
     if (r < 1) r = 1
     // One division per realisation; everything else multiplies by 1/r.
     const invR = 1 / r
@@ -158,7 +158,7 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
     const K = Rc[o + O_THK]!
     if (K > 0) {
       const zb = Rc[o + O_ZB]!
-      const hidden = (1 - dot) * EARTH_RADIUS_M - zb
+      const hidden = (1 - dot) * R_E - zb
       const rf = Rc[o + O_RF]!
       if (hidden < rf) {
         const phi = visibleFractionOfRatio(hidden / rf) * K / (r * r + zb * zb)
