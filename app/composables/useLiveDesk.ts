@@ -64,7 +64,10 @@ export function useLiveDesk(exerciseId: string, opts: DeskOptions = {}) {
   const events = computed(() => store.events.slice())
   const clock = computed(() => (caughtUp.value ? store.clock : null) ?? data.value?.clock ?? null)
   /** Scenario time now (ms): ticking once live; the snapshot's moment before that. */
-  const scenarioNow = computed<number | null>(() => (caughtUp.value && store.scenarioNow !== null ? store.scenarioNow : data.value ? Date.parse(data.value.scenarioNow) : null))
+  const scenarioNow = computed<number | null>(() => {
+    if (caughtUp.value && store.scenarioNow !== null) return store.scenarioNow
+    return data.value ? Date.parse(data.value.scenarioNow) : null
+  })
 
   return { live, store, snapshot, data, feed, events, clock, scenarioNow, caughtUp, refreshSoon }
 }

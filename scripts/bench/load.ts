@@ -44,7 +44,12 @@ export interface LoadOptions {
 }
 
 export interface Stats { samples: number; medianMs: number; p99Ms: number; maxMs: number }
-const stats = (xs: number[]): Stats => ({ samples: xs.length, medianMs: pct(xs, 0.5), p99Ms: pct(xs, 0.99), maxMs: xs.length ? Math.max(...xs) : Number.NaN })
+const stats = (xs: number[]): Stats => ({
+  samples: xs.length,
+  medianMs: pct(xs, 0.5),
+  p99Ms: pct(xs, 0.99),
+  maxMs: xs.length ? Math.max(...xs) : Number.NaN,
+})
 
 export interface LoadReport {
   sockets: { players: number; perTeam: Record<string, number>; evaluators: number; control: number; probes: number; connectMs: number }
@@ -91,7 +96,14 @@ export function drillScenario(demo: Scenario, key: string, extra: number): Scena
       teams: decide ? [teams[i % teams.length]!] : teams, title: `Drill inject ${i + 1}`,
       body: `Situation update ${i + 1} for the drill.\n\n- **Status**: unchanged\n- Check the team log.`,
       expectedActions: ['Acknowledge in the team log.'],
-      ...(decide ? { decision: { prompt: 'Confirm the next step.', choices: ['Proceed', 'Hold'], freeText: true, deadline: iso(Math.min(at + 86400_000, end)) } } : {}),
+      ...(decide
+        ? { decision: {
+            prompt: 'Confirm the next step.',
+            choices: ['Proceed', 'Hold'],
+            freeText: true,
+            deadline: iso(Math.min(at + 86400_000, end)),
+          } }
+        : {}),
     }
   })
   const injects = demo.injects.map((i) => {
@@ -128,7 +140,15 @@ interface ClientInput {
   decisions: Record<string, string[] | null>
   members: Array<{ email: string; role: string; teamKey: string | null; cookie: string }>
 }
-interface ClientResult { delays: number[]; responseMs: number[]; sent: number; retried: number; responseErrors: number; errors: string[]; seqs: Array<{ email: string; seqs: number[] }> }
+interface ClientResult {
+  delays: number[]
+  responseMs: number[]
+  sent: number
+  retried: number
+  responseErrors: number
+  errors: string[]
+  seqs: Array<{ email: string; seqs: number[] }>
+}
 interface ClientHandle { ready: Promise<number>; finish: () => Promise<ClientResult> }
 
 /**
@@ -142,11 +162,22 @@ function startClients(input: ClientInput) {
   async function answer(cookie: string, injectKey: string) {
     await sleep(200 + Math.random() * 3000)
     const choices = input.decisions[injectKey]
-    const body = { injectKey, choice: choices ? choices[Math.floor(Math.random() * choices.length)] : null, text: 'Answered under load.', idempotencyKey: `load-${crypto.randomUUID()}` }
+    const body = {
+      injectKey,
+      choice: choices ? choices[Math.floor(Math.random() * choices.length)] : null,
+      text: 'Answered under load.',
+      idempotencyKey: `load-${crypto.randomUUID()}`,
+    }
     const times = Math.random() < input.retryShare ? 2 : 1
     for (let k = 0; k < times; k++) {
       const start = performance.now()
-      const res = await request(input.base, cookie, 'POST', `/api/exercises/${input.exerciseId}/responses`, body).catch((err: Error) => ({ status: 0, text: err.message }))
+      const res = await request(
+        input.base,
+        cookie,
+        'POST',
+        `/api/exercises/${input.exerciseId}/responses`,
+        body,
+      ).catch((err: Error) => ({ status: 0, text: err.message }))
       result.responseMs.push(performance.now() - start)
       result.sent++
       if (k > 0) result.retried++
@@ -164,7 +195,17 @@ function startClients(input: ClientInput) {
       const seqs: number[] = []
       result.seqs.push({ email: m.email, seqs })
       await new Promise<void>((ok, fail) => {
-        const s = io(input.base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie: m.cookie }, auth: { exerciseId: input.exerciseId, lastSeq: 0 } })
+        const s = io(
+          input.base,
+          {
+            path: '/socket.io/',
+            transports: ['websocket'],
+            forceNew: true,
+            reconnection: false,
+            extraHeaders: { cookie: m.cookie },
+            auth: { exerciseId: input.exerciseId, lastSeq: 0 },
+          },
+        )
         sockets.push(s)
         s.on('event', (e: { seq: number; type: string; wallTime: string; data: { key?: string } }) => {
           seqs.push(e.seq)
@@ -172,7 +213,10 @@ function startClients(input: ClientInput) {
           result.delays.push(Date.now() - Date.parse(e.wallTime))
           if (m.role === 'player' && e.data.key! in input.decisions) answering.push(answer(m.cookie, e.data.key!))
         })
-        s.on('disconnect', (reason: string) => { if (reason !== 'io client disconnect') result.errors.push(`socket ${m.email} disconnected: ${reason}`) })
+        s.on(
+          'disconnect',
+          (reason: string) => { if (reason !== 'io client disconnect') result.errors.push(`socket ${m.email} disconnected: ${reason}`) },
+        )
         s.once('live:ready', () => ok())
         s.once('connect_error', fail)
       })
@@ -195,7 +239,11 @@ function inlineClients(input: ClientInput): ClientHandle {
 
 /** The clients in a child process of their own (this file again, with tsx), talking over IPC. */
 function processClients(input: ClientInput): ClientHandle {
-  const child = fork(fileURLToPath(import.meta.url), [CLIENT_FLAG], { execArgv: ['--import', 'tsx'], serialization: 'advanced', stdio: ['ignore', 'inherit', 'inherit', 'ipc'] })
+  const child = fork(
+    fileURLToPath(import.meta.url),
+    [CLIENT_FLAG],
+    { execArgv: ['--import', 'tsx'], serialization: 'advanced', stdio: ['ignore', 'inherit', 'inherit', 'ipc'] },
+  )
   const message = <T>(type: string) => new Promise<T>((ok, fail) => {
     const on = (m: { type: string; value: T }) => {
       if (m.type !== type) return
@@ -340,13 +388,22 @@ export async function runLoad(opts: LoadOptions): Promise<LoadReport> {
 
     // The drill: the demo scenario from the library, 16 injects more, imported as a YAML file.
     const list = (await call(author, 'GET', '/api/scenarios')).json as Array<{ id: string; key: string }>
-    const demo = (await call(author, 'GET', `/api/scenarios/${list.find(s => s.key === 'demo-ocean-impact')!.id}`)).json.document as Scenario
+    const demo = (await call(
+      author,
+      'GET',
+      `/api/scenarios/${list.find(s => s.key === 'demo-ocean-impact')!.id}`,
+    )).json.document as Scenario
     const scenario = drillScenario(demo, 'load-drill', opts.extraInjects)
     const form = new FormData()
     form.append('file', new Blob([stringifyScenario(scenario)], { type: 'application/yaml' }), 'load-drill.yaml')
     const imported = await call(author, 'POST', '/api/scenarios/import?onConflict=copy', form)
     if (imported.status !== 201) throw new Error(`import → ${imported.status} ${imported.text}`)
-    const exerciseId = (await call(author, 'POST', `/api/scenarios/${imported.json.id}/exercises`, { title: 'Load drill' })).json.id as string
+    const exerciseId = (await call(
+      author,
+      'POST',
+      `/api/scenarios/${imported.json.id}/exercises`,
+      { title: 'Load drill' },
+    )).json.id as string
     const x = (p: string) => `/api/exercises/${exerciseId}${p}`
     const scheduled = scenario.injects.filter(i => !i.contingency)
     const decisions = new Map(scheduled.filter(i => i.decision).map(i => [i.key, i]))
@@ -476,8 +533,20 @@ export async function runLoad(opts: LoadOptions): Promise<LoadReport> {
       responses: { ...stats(measured.responseMs), sent, retried, errors: responseErrors },
       deliveryAll: stats(results.flatMap(r => r.delays)),
       responsesAll: stats(results.flatMap(r => r.responseMs)),
-      memory: { startMiB: start.rssMiB, peakMiB: Math.max(...samples.map(s => s.rssMiB)), endMiB: end.rssMiB, idleMiB: idle.rssMiB, heapStartMiB: heapStart, heapEndMiB: heapEnd },
-      cpu: { drillSeconds, cpuSeconds: end.cpuSeconds - start.cpuSeconds, averagePercent: (100 * (end.cpuSeconds - start.cpuSeconds)) / drillSeconds, peakPercent: Math.max(...cpuPercents) },
+      memory: {
+        startMiB: start.rssMiB,
+        peakMiB: Math.max(...samples.map(s => s.rssMiB)),
+        endMiB: end.rssMiB,
+        idleMiB: idle.rssMiB,
+        heapStartMiB: heapStart,
+        heapEndMiB: heapEnd,
+      },
+      cpu: {
+        drillSeconds,
+        cpuSeconds: end.cpuSeconds - start.cpuSeconds,
+        averagePercent: (100 * (end.cpuSeconds - start.cpuSeconds)) / drillSeconds,
+        peakPercent: Math.max(...cpuPercents),
+      },
       events, lost, duplicateDeliveries, duplicateResponses: dupes.n, errors,
     }
   }

@@ -7,7 +7,10 @@ import { FINDING_KINDS, HOTWASH_KEYS, ITEM_STATUSES, POETE_ELEMENTS } from '../.
 const id = () => text('id').primaryKey().$defaultFn(() => crypto.randomUUID())
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
-  updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`).$onUpdate(() => new Date()),
+  updatedAt: integer(
+    'updated_at',
+    { mode: 'timestamp_ms' },
+  ).notNull().default(sql`(unixepoch('subsec') * 1000)`).$onUpdate(() => new Date()),
 }
 
 export const users = sqliteTable('users', {

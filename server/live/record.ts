@@ -45,7 +45,10 @@ export function audienceWhere(view: LiveView): SQL | undefined {
   switch (view.kind) {
     case 'control': return undefined
     case 'evaluator': return ne(audience, 'control')
-    case 'player': return or(eq(audience, 'all'), and(like(audience, 'teams:%'), sql`(',' || substr(${audience}, 7) || ',') like ${`%,${view.teamKey},%`}`))
+    case 'player': return or(
+      eq(audience, 'all'),
+      and(like(audience, 'teams:%'), sql`(',' || substr(${audience}, 7) || ',') like ${`%,${view.teamKey},%`}`),
+    )
     case 'wall': return and(eq(audience, 'all'), inArray(type, wallTypes()))
   }
 }
@@ -74,7 +77,8 @@ function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, 
 export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T {
   const appended: StoredEvent[] = []
   let exercise: LiveExercise | undefined
-  // IMMEDIATE takes the write lock first: with several processes on one file, a deferred read-then-write fails with SQLITE_BUSY instead of waiting.
+  // IMMEDIATE takes the write lock first: with several processes on one file, a deferred read-then-write fails with SQLITE_BUSY instead of
+  // waiting.
   const result = useDB().transaction((tx) => {
     exercise = liveExercise(tx, exerciseId)
     const clock = readClock(tx, exercise)
@@ -95,10 +99,16 @@ export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T 
 /** The event a caller already wrote with this idempotency key (null if none); 409 when it was another kind of write. */
 export function findIdempotent(tx: Tx, exerciseId: string, actorId: string, key: string, type: LiveEventType): StoredEvent | null {
   const row = tx.select().from(schema.exerciseEvents).where(and(
-    eq(schema.exerciseEvents.exerciseId, exerciseId), eq(schema.exerciseEvents.actorId, actorId), eq(schema.exerciseEvents.idempotencyKey, key),
+    eq(
+      schema.exerciseEvents.exerciseId,
+      exerciseId,
+    ), eq(schema.exerciseEvents.actorId, actorId), eq(schema.exerciseEvents.idempotencyKey, key),
   )).get()
   if (!row) return null
-  if (row.type !== type) throw conflict('This idempotency key was already used for another write.', { issues: [{ path: 'idempotencyKey', message: 'already used' }] })
+  if (row.type !== type) throw conflict(
+    'This idempotency key was already used for another write.',
+    { issues: [{ path: 'idempotencyKey', message: 'already used' }] },
+  )
   return toStored(row)
 }
 

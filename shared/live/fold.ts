@@ -40,7 +40,17 @@ export interface Feed {
 }
 
 export function emptyFeed(): Feed {
-  return { injects: [], solutions: [], currentSolution: null, clock: null, responses: [], scores: [], observations: [], held: [], lastSeq: 0 }
+  return {
+    injects: [],
+    solutions: [],
+    currentSolution: null,
+    clock: null,
+    responses: [],
+    scores: [],
+    observations: [],
+    held: [],
+    lastSeq: 0,
+  }
 }
 
 /** Folds events (in any order; duplicates by seq are ignored) into a feed. */

@@ -74,7 +74,12 @@ function group(key: string, rows: readonly DecisionRow[]): DecisionGroup {
  * Response times of every decision in a record (events in any order, the control view), at scenario
  * time `scenarioNow` (ms): an unanswered decision is `missed` once its deadline has passed, else `pending`.
  */
-export function decisionSummary(events: readonly StoredEvent[], scenario: Pick<Scenario, 'teams' | 'phases' | 'injects'>, scenarioNow: number): DecisionSummary {
+export function decisionSummary(
+  events: readonly StoredEvent[],
+  scenario: Pick<Scenario,
+  'teams' | 'phases' | 'injects'>,
+  scenarioNow: number,
+): DecisionSummary {
   const sorted = [...events].sort((a, b) => a.seq - b.seq)
   const responses = new Map<string, Array<{ e: StoredEvent; d: ResponseData }>>()
   for (const e of sorted) {
@@ -99,7 +104,17 @@ export function decisionSummary(events: readonly StoredEvent[], scenario: Pick<S
         injectKey: d.key, title: d.title, phase: d.phase ?? phaseAt(scenario, e.scenarioTime), teamKey,
         releasedSeq: e.seq, releasedAt: new Date(e.scenarioTime).toISOString(), releasedWall: new Date(e.wallTime).toISOString(),
         deadline: new Date(deadline).toISOString(), allowedMin,
-        first: f ? { seq: f.e.seq, scenarioTime: new Date(f.e.scenarioTime).toISOString(), wallTime: new Date(f.e.wallTime).toISOString(), choice: f.d.choice, text: f.d.text, by: f.d.by.name, late: f.d.late } : null,
+        first: f
+          ? {
+              seq: f.e.seq,
+              scenarioTime: new Date(f.e.scenarioTime).toISOString(),
+              wallTime: new Date(f.e.wallTime).toISOString(),
+              choice: f.d.choice,
+              text: f.d.text,
+              by: f.d.by.name,
+              late: f.d.late,
+            }
+          : null,
         responseMin, responseWallMin: f ? (f.e.wallTime - e.wallTime) / MIN : null,
         shareOfAllowed: f && allowedMin > 0 ? responseMin! / allowedMin : null,
         responses: all.length, status,

@@ -5,7 +5,8 @@ import type { Scenario } from '../scenario/schema'
 
 export interface TimelineFacets { seq: number; teamKeys: string[]; phaseKey: string | null }
 
-/** Teams of an event (empty: it concerns everyone or no team in particular) and its phase (the inject's, else the phase at its scenario time). */
+/** Teams of an event (empty: it concerns everyone or no team in particular) and its phase (the inject's, else the phase at its scenario
+ * time). */
 export function eventFacets(e: StoredEvent, scenario: Pick<Scenario, 'injects' | 'phases'>): TimelineFacets {
   let teamKeys: string[] = []
   let phaseKey: string | null = null

@@ -39,11 +39,19 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
   switch (e.type) {
     case 'clock.changed': {
       const d = e.data as ClockChangedData
-      return { ...none, summary: `Clock: ${d.action}${d.clock.paused ? ' (paused)' : ''}`, detail: `speed ×${Math.round(d.clock.factor)}${d.from ? `; from ${d.from}` : ''}` }
+      return {
+        ...none,
+        summary: `Clock: ${d.action}${d.clock.paused ? ' (paused)' : ''}`,
+        detail: `speed ×${Math.round(d.clock.factor)}${d.from ? `; from ${d.from}` : ''}`,
+      }
     }
     case 'solution.published': {
       const d = e.data as SolutionPublishedData
-      return { ...none, summary: `Orbit solution published: ${d.label}`, detail: `impact probability ${pct(d.headline.impactProbability)}; energy ${d.headline.text.energyMt}; Torino ${d.headline.torino}; ${d.manual ? 'by hand' : 'on schedule'}` }
+      return {
+        ...none,
+        summary: `Orbit solution published: ${d.label}`,
+        detail: `impact probability ${pct(d.headline.impactProbability)}; energy ${d.headline.text.energyMt}; Torino ${d.headline.torino}; ${d.manual ? 'by hand' : 'on schedule'}`,
+      }
     }
     case 'inject.released':
     case 'message.sent': {
@@ -51,12 +59,22 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
       return {
         teams: d.teams.map(teamName).join('; '), phase: d.phase ?? '', injectKey: d.key,
         summary: `${d.adhoc ? 'Message' : 'Inject released'}: ${d.title}`,
-        detail: [d.kind, d.manual ? 'by hand' : 'on schedule', d.decision ? `decision due ${d.decision.deadline}` : ''].filter(Boolean).join('; '),
+        detail: [
+          d.kind,
+          d.manual ? 'by hand' : 'on schedule',
+          d.decision ? `decision due ${d.decision.deadline}` : '',
+        ].filter(Boolean).join('; '),
       }
     }
     case 'inject.revised': {
       const d = e.data as InjectRevisedData
-      return { ...none, teams: d.teams.map(teamName).join('; '), injectKey: d.key, summary: `Figures revised (revision ${d.revision})`, detail: `from solution ${d.previousSolutionKey ?? '—'} to ${d.solutionKey ?? '—'}` }
+      return {
+        ...none,
+        teams: d.teams.map(teamName).join('; '),
+        injectKey: d.key,
+        summary: `Figures revised (revision ${d.revision})`,
+        detail: `from solution ${d.previousSolutionKey ?? '—'} to ${d.solutionKey ?? '—'}`,
+      }
     }
     case 'inject.held': {
       const d = e.data as InjectHeldData
@@ -64,7 +82,13 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
     }
     case 'response.submitted': {
       const d = e.data as ResponseData
-      return { ...none, teams: teamName(d.teamKey), injectKey: d.injectKey, summary: `Response${d.choice ? `: ${d.choice}` : ''}${d.late ? ' (late)' : ''}`, detail: d.text }
+      return {
+        ...none,
+        teams: teamName(d.teamKey),
+        injectKey: d.injectKey,
+        summary: `Response${d.choice ? `: ${d.choice}` : ''}${d.late ? ' (late)' : ''}`,
+        detail: d.text,
+      }
     }
     case 'score.recorded': {
       const d = e.data as ScoreData

@@ -47,7 +47,13 @@ describe('timeline exports', () => {
     const seqs = (Array.isArray(events) ? events : events.events).map((e: { seq: number }) => e.seq)
     expect(res.json.events.map((e: { seq: number }) => e.seq)).toEqual(seqs)
     expect(res.json.rows).toHaveLength(seqs.length)
-    expect(res.json.events.map((e: { type: string }) => e.type)).toEqual(expect.arrayContaining(['clock.changed', 'solution.published', 'inject.released', 'response.submitted', 'score.recorded']))
+    expect(res.json.events.map((e: { type: string }) => e.type)).toEqual(expect.arrayContaining([
+      'clock.changed',
+      'solution.published',
+      'inject.released',
+      'response.submitted',
+      'score.recorded',
+    ]))
   })
 
   it('CSV has one row per event after the marking and caution, and formulas are defused', async () => {

@@ -29,7 +29,14 @@ function rng(seed: number) {
 const random = rng(SEED)
 const between = (lo: number, hi: number) => lo + Math.floor(random() * (hi - lo))
 
-interface Ev { seq: number; type: string; wallTime: string; scenarioTime: string; actorId?: string | null; data: any } // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
+interface Ev {
+  seq: number
+  type: string
+  wallTime: string
+  scenarioTime: string
+  actorId?: string | null
+  data: any // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
+}
 
 const server = new TestServer({ env: { NUXT_SCHEDULER_INTERVAL_MS: '50' } })
 let facilitator: Http
@@ -58,7 +65,17 @@ class Follower {
   async connect() {
     this.close()
     const lastSeq = this.seen.at(-1) ?? 0
-    const s = io(server.base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie: science.cookie }, auth: { exerciseId, lastSeq } })
+    const s = io(
+      server.base,
+      {
+        path: '/socket.io/',
+        transports: ['websocket'],
+        forceNew: true,
+        reconnection: false,
+        extraHeaders: { cookie: science.cookie },
+        auth: { exerciseId, lastSeq },
+      },
+    )
     this.socket = s
     s.on('event', (e: Ev) => this.seen.push(e.seq))
     await new Promise<void>((ok, fail) => {
@@ -146,7 +163,9 @@ describe('a drill under repeated SIGKILL', () => {
       const traffic = (async () => {
         while (Date.now() < stopAt && server.running) {
           const released = keysOf(await record(science).catch(() => []), 'inject.released')
-          for (let n = between(1, 4); released.length && n > 0; n--) void responder.send(released[between(0, released.length)]!).catch((err: Error) => errors.push(err))
+          for (let n = between(1, 4); released.length && n > 0; n--) {
+            void responder.send(released[between(0, released.length)]!).catch((err: Error) => errors.push(err))
+          }
           await sleep(between(10, 80))
         }
       })()

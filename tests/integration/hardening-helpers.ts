@@ -59,7 +59,11 @@ export class TestServer {
   async start(): Promise<number> {
     const t0 = Date.now()
     const mode = this.opts.stderr ?? 'inherit'
-    const proc: ChildProcess = spawn(process.execPath, [ENTRY], { env: this.env, stdio: ['ignore', 'ignore', mode === 'capture' ? 'pipe' : mode] })
+    const proc: ChildProcess = spawn(
+      process.execPath,
+      [ENTRY],
+      { env: this.env, stdio: ['ignore', 'ignore', mode === 'capture' ? 'pipe' : mode] },
+    )
     if (mode === 'capture') proc.stderr!.on('data', (chunk: Buffer) => { this.log += chunk.toString() })
     this.proc = proc
     this.starts++
@@ -95,7 +99,12 @@ export class TestServer {
   }
 }
 
-export interface Answer { status: number; json: any; text: string; headers: Headers } // eslint-disable-line @typescript-eslint/no-explicit-any -- tests read any shape
+export interface Answer {
+  status: number
+  json: any // eslint-disable-line @typescript-eslint/no-explicit-any -- tests read any shape
+  text: string
+  headers: Headers
+}
 
 /** A cookie-keeping client of one server. */
 export class Http {

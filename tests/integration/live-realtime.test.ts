@@ -31,7 +31,10 @@ describe('joining', () => {
   it('a signed-in non-member is refused with "forbidden", an anonymous one with "unauthorized"', async () => {
     const outsider = await newPerson('Realtime outsider')
     expect(await refused(liveSocket(outsider.client.cookieHeader, { exerciseId: cast.id }))).toBe('forbidden')
-    expect(await refused(liveSocket(outsider.client.cookieHeader, { exerciseId: '00000000-0000-4000-8000-000000000000' }))).toBe('forbidden')
+    expect(await refused(liveSocket(
+      outsider.client.cookieHeader,
+      { exerciseId: '00000000-0000-4000-8000-000000000000' },
+    ))).toBe('forbidden')
     expect(await refused(liveSocket(null, { exerciseId: cast.id }))).toBe('unauthorized')
     expect(await refused(liveSocket(outsider.client.cookieHeader, { exerciseId: 'nope' }))).toBe('invalid-auth')
   })

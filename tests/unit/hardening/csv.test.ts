@@ -36,7 +36,10 @@ describe('guardCsvCell', () => {
   })
 
   it('no cell of a CSV made of guarded cells starts a formula once a spreadsheet parses it back', () => {
-    fc.assert(fc.property(fc.array(fc.array(fc.oneof(formula, fc.string(), fc.integer()), { minLength: 1, maxLength: 6 }), { minLength: 1, maxLength: 6 }), (rows) => {
+    fc.assert(fc.property(fc.array(
+      fc.array(fc.oneof(formula, fc.string(), fc.integer()), { minLength: 1, maxLength: 6 }),
+      { minLength: 1, maxLength: 6 },
+    ), (rows) => {
       const csv = Papa.unparse(rows.map(r => r.map(guardCsvCell)), { newline: '\r\n' })
       const back = Papa.parse<string[]>(csv, { newline: '\r\n', delimiter: ',' }).data
       for (const cell of back.flat()) expect(/^[=+\-@\t\r]/.test(cell)).toBe(false)
