@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { io, type Socket } from 'socket.io-client'
 import { parseScenarioYaml } from '../../shared/scenario/io'
-import { freePort } from '../../tests/integration/global-setup'
+import { freePort } from '../../tests/support/ports'
 
 const SOCKETS = Number(process.env.BENCH_SOCKETS) || 300
 const RELEASES = Number(process.env.BENCH_RELEASES) || 24

@@ -1,8 +1,8 @@
 // The live routes against every role: anonymous → 401, non-member → 404, another role → 403, the
 // allowed roles get through to validation (400 with field issues) or an answer.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { as, Client } from './helpers'
-import { ikey, newLiveExercise, newPerson, type LiveCast, type Person } from './live-helpers'
+import { as, Client } from '../support/client'
+import { ikey, newLiveExercise, newPerson, type LiveCast, type Person } from '../support/live'
 
 type Who = 'facilitator' | 'science' | 'evaluator' | 'analyst'
 interface Route { name: string; method: 'GET' | 'POST' | 'DELETE'; path: string; body?: unknown; allowed: Who[]; badField?: string }

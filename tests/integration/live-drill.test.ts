@@ -1,7 +1,7 @@
 // A drill played through the live API on a compressed clock: the scheduler, manual releases, holds,
 // contingencies, solution publications with revised injects, responses, scores and desk snapshots.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { closeSockets, ikey, liveSocket, newLiveExercise, ready, until, type LiveCast, type LiveSocket } from './live-helpers'
+import { closeSockets, ikey, liveSocket, newLiveExercise, ready, until, type LiveCast, type LiveSocket } from '../support/live'
 
 let cast: LiveCast
 let socks: Record<'control' | 'science' | 'civil' | 'comms' | 'evaluator', LiveSocket>

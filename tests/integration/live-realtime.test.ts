@@ -2,8 +2,8 @@
 // drop, and the wall view by share link.
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
 import { io } from 'socket.io-client'
-import { baseUrl, Client } from './helpers'
-import { closeSockets, liveSocket, newLiveExercise, newPerson, ready, refused, until, type LiveCast, type LiveSocket } from './live-helpers'
+import { baseUrl, Client } from '../support/client'
+import { closeSockets, liveSocket, newLiveExercise, newPerson, ready, refused, until, type LiveCast, type LiveSocket } from '../support/live'
 
 let cast: LiveCast
 const url = (path: string) => `/api/exercises/${cast.id}${path}`

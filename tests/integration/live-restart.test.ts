@@ -7,9 +7,9 @@ import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { io } from 'socket.io-client'
-import { freePort } from './global-setup'
-import { DEMO, DEMO_PASSWORD } from './helpers'
-import { until } from './live-helpers'
+import { freePort } from '../support/ports'
+import { DEMO, DEMO_PASSWORD } from '../support/client'
+import { until } from '../support/live'
 
 const dir = mkdtempSync(join(tmpdir(), 'brinkwater-restart-'))
 let base = ''

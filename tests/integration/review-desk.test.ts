@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { Client } from './helpers'
-import { closeSockets } from './live-helpers'
-import { KAPPA_BY_HAND, playReviewDrill, RATED, type ReviewDrill } from './review-drill'
+import { Client } from '../support/client'
+import { closeSockets } from '../support/live'
+import { KAPPA_BY_HAND, playReviewDrill, RATED, type ReviewDrill } from '../support/review-drill'
 
 let d: ReviewDrill
 const url = (p = '') => `/api/exercises/${d.id}${p}`
@@ -25,7 +25,7 @@ describe('the review desk', () => {
       expect(res.json.message).toMatch(/role/i)
     }
     expect((await new Client().get(url('/review'))).status).toBe(401)
-    const { client: stranger } = await (await import('./live-helpers')).newPerson('Stranger')
+    const { client: stranger } = await (await import('../support/live')).newPerson('Stranger')
     expect((await stranger.get(url('/review'))).status).toBe(404)
   })
 

@@ -3,9 +3,9 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { as, baseUrl, Client } from './helpers'
-import { closeSockets } from './live-helpers'
-import { playReviewDrill, type ReviewDrill } from './review-drill'
+import { as, baseUrl, Client } from '../support/client'
+import { closeSockets } from '../support/live'
+import { playReviewDrill, type ReviewDrill } from '../support/review-drill'
 
 let d: ReviewDrill
 let dir: string

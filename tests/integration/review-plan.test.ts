@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { Client, mailTo } from './helpers'
-import { closeSockets, newLiveExercise, type LiveCast } from './live-helpers'
+import { Client, mailTo } from '../support/client'
+import { closeSockets, newLiveExercise, type LiveCast } from '../support/live'
 
 let d: LiveCast
 const url = (p = '') => `/api/exercises/${d.id}${p}`

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { parse } from 'yaml'
-import { as, Client, type DemoKey } from './helpers'
+import { as, Client, type DemoKey } from '../support/client'
 
 const root = resolve(import.meta.dirname, '../..')
 let library: Array<{ id: string; key: string; title: string }> = []

@@ -8,10 +8,10 @@ import { createConnection } from 'node:net'
 import Database from 'better-sqlite3'
 import { io, type Socket } from 'socket.io-client'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { freePort } from './global-setup'
-import { DEMO } from './helpers'
-import { until } from './live-helpers'
-import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from './hardening-helpers'
+import { freePort } from '../support/ports'
+import { DEMO } from '../support/client'
+import { until } from '../support/live'
+import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from '../support/test-server'
 import type { Scenario } from '../../shared/scenario'
 
 interface Ev { seq: number; type: string; data: any } // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
@@ -203,6 +203,6 @@ describe('two processes behind one address', () => {
     expect(replayed).toEqual(record.filter((q: number) => q >= replayed[0]!))
     for (const s of [a, b]) expect(s.log).not.toMatch(/SQLITE_BUSY|\[request error\]|\[scheduler\] exercise/)
     expect(holder.log + other.log).toMatch(/the scheduler lease went to another process/)
-    console.info(`[hardening-cluster] release through B → socket on A in ${got.at - sent} ms; holder pid ${holderPid} frozen, pid ${other.pid} took over after ${resumedAt - frozenAt} ms (lease ${LEASE_MS} ms); ${all.length} releases, none twice; events out of seq order on the sockets of A/B: ${late.join('/')}`)
+    console.info(`[several-processes] release through B → socket on A in ${got.at - sent} ms; holder pid ${holderPid} frozen, pid ${other.pid} took over after ${resumedAt - frozenAt} ms (lease ${LEASE_MS} ms); ${all.length} releases, none twice; events out of seq order on the sockets of A/B: ${late.join('/')}`)
   }, 120_000)
 })

@@ -5,8 +5,8 @@
 import { createHash } from 'node:crypto'
 import Database from 'better-sqlite3'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { Http, TestServer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { Http, TestServer } from '../support/test-server'
 
 const server = new TestServer()
 let admin: Http

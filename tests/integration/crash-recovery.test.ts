@@ -7,9 +7,9 @@
 import Database from 'better-sqlite3'
 import { io, type Socket } from 'socket.io-client'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { until } from './live-helpers'
-import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { until } from '../support/live'
+import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from '../support/test-server'
 import type { Scenario } from '../../shared/scenario'
 
 const KILLS = Number(process.env.HARDENING_KILLS) || 22
@@ -138,7 +138,7 @@ afterAll(async () => {
 
 describe('a drill under repeated SIGKILL', () => {
   it(`survives ${KILLS} kills at random moments with a whole record, the right clock, every due release once, and caught-up clients`, async () => {
-    console.info(`[hardening-faults] seed ${SEED} (HARDENING_SEED=${SEED} replays this run)`)
+    console.info(`[crash-recovery] seed ${SEED} (HARDENING_SEED=${SEED} replays this run)`)
     const scheduled = scenario.injects.filter(i => !i.contingency)
     const firstAt = Date.parse(scenario.clock.scenarioStart)
     const lastAt = Math.max(...scheduled.map(i => Date.parse(i.at)))
@@ -265,6 +265,6 @@ describe('a drill under repeated SIGKILL', () => {
     expect(follower.seen).toEqual(visible)
 
     const sorted = [...startTimes].sort((a, b) => a - b)
-    console.info(`[hardening-faults] ${kills} SIGKILLs survived; ${final.length} events; ${responder.acked.size} responses (${responder.resent} re-sent after a kill, none doubled); ${clockActions} pause/resume pairs; ${follower.connections} socket connections; restart median ${sorted[sorted.length >> 1]} ms`)
+    console.info(`[crash-recovery] ${kills} SIGKILLs survived; ${final.length} events; ${responder.acked.size} responses (${responder.resent} re-sent after a kill, none doubled); ${clockActions} pause/resume pairs; ${follower.connections} socket connections; restart median ${sorted[sorted.length >> 1]} ms`)
   }, 240_000)
 })

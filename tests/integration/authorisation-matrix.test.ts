@@ -7,8 +7,8 @@ import { readdirSync } from 'node:fs'
 import { join, relative, resolve } from 'node:path'
 import { io } from 'socket.io-client'
 import { beforeAll, afterAll, describe, expect, it } from 'vitest'
-import { as, baseUrl, Client } from './helpers'
-import { ikey, newPerson, until } from './live-helpers'
+import { as, baseUrl, Client } from '../support/client'
+import { ikey, newPerson, until } from '../support/live'
 import type { Scenario } from '../../shared/scenario'
 import { HOTWASH_KEYS } from '../../shared/review/plan'
 
@@ -406,7 +406,7 @@ describe('the authorisation matrix', () => {
         if (!ok) failures.push(`${row.route} as ${role}: expected ${status}${message ? ` ${message}` : ''}, got ${res.status} ${(res.json?.message ?? '').slice(0, 80)}`)
       }))
     }
-    console.info(`[hardening-matrix] ${MATRIX.routes.length} routes × ${ROLES.length} roles = ${cells} HTTP cells`)
+    console.info(`[authorisation-matrix] ${MATRIX.routes.length} routes × ${ROLES.length} roles = ${cells} HTTP cells`)
     expect(failures).toEqual([])
   }, 120_000)
 })
@@ -470,7 +470,7 @@ describe('socket rooms against every role', () => {
         if (got !== want) failures.push(`room ${row.room} as ${role}: expected ${want ? 'heard' : 'silent'}, got ${got ? 'heard' : 'silent'}`)
       }
     }
-    console.info(`[hardening-matrix] ${MATRIX.rooms.length} rooms × ${ROLES.length} roles = ${cells} socket cells`)
+    console.info(`[authorisation-matrix] ${MATRIX.rooms.length} rooms × ${ROLES.length} roles = ${cells} socket cells`)
     expect(failures).toEqual([])
     // A revoked wall link stops at once and cannot connect again.
     const tokenId = (await f.get(`${x}/wall-tokens`)).json.find((t: { label: string }) => t.label === 'Matrix wall').id

@@ -1,7 +1,7 @@
 // Helpers for the live exercise tests: a fresh exercise from the demo scenario with its own people
 // (so that the demo accounts' exercise lists stay as other tests expect), and socket clients.
 import { io, type Socket } from 'socket.io-client'
-import { as, baseUrl, Client, mailTo } from './helpers'
+import { as, baseUrl, Client, mailTo } from './client'
 
 /** Invites a person (optionally an admin, who may start exercises) and signs them in. */
 export async function newPerson(name: string, systemRole: 'admin' | 'member' = 'member') {

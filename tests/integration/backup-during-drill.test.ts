@@ -6,9 +6,9 @@ import { copyFileSync, existsSync, rmSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import Database from 'better-sqlite3'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { until } from './live-helpers'
-import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { until } from '../support/live'
+import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from '../support/test-server'
 import type { Scenario } from '../../shared/scenario'
 
 interface Ev { seq: number; type: string; data: any } // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
@@ -139,6 +139,6 @@ describe('a backup taken while a drill runs', () => {
     expect(released(final).length).toBe(scheduled.length)
     await server.stop()
     expectConsistent(snapshot(server.dbPath))
-    console.info(`[hardening-backup] 3 backups mid-drill (${counts.join(', ')} of ${scheduled.length} injects released), restored from the second (${middle.events.length} events), drill completed once`)
+    console.info(`[backup-during-drill] 3 backups mid-drill (${counts.join(', ')} of ${scheduled.length} injects released), restored from the second (${middle.events.length} events), drill completed once`)
   }, 120_000)
 })

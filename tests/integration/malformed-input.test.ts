@@ -15,8 +15,8 @@ import Papa from 'papaparse'
 import { stringify as yamlStringify } from 'yaml'
 import type { z } from 'zod'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { demoScenario, Http, TestServer, type Answer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { demoScenario, Http, TestServer, type Answer } from '../support/test-server'
 import { forgotSchema, inviteSchema, loginSchema, setPasswordSchema } from '../../shared/schemas/auth'
 import {
   clockActionSchema,
@@ -398,7 +398,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   const total = Object.values(tried).reduce((a, b) => a + b, 0)
-  console.info(`[hardening-input] ${total} bad inputs tried: ${Object.entries(tried).map(([k, v]) => `${k} ${v}`).join(', ')}`)
+  console.info(`[malformed-input] ${total} bad inputs tried: ${Object.entries(tried).map(([k, v]) => `${k} ${v}`).join(', ')}`)
   await server.dispose()
 })
 

@@ -3,8 +3,8 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { describe, expect, it } from 'vitest'
-import { freePort } from './global-setup'
-import { as, baseUrl, Client, DEMO, DEMO_PASSWORD } from './helpers'
+import { freePort } from '../support/ports'
+import { as, baseUrl, Client, DEMO, DEMO_PASSWORD } from '../support/client'
 
 describe('security headers and cross-site requests', () => {
   it('every answer carries the security headers', async () => {
