@@ -3,16 +3,15 @@ import { and, eq } from 'drizzle-orm'
 import { hasHazardFields, renderBody } from '#shared/live/headline'
 import { phaseAt } from '#shared/live/schedule'
 import { DRILL, teamsAudience } from '#shared/live/visibility'
-import type { InjectData } from '#shared/live/types'
+import type { InjectData, InjectDefinition } from '#shared/live/types'
 import { BUILT_IN_INJECT_KINDS } from '#shared/scenario/constants'
 import { validateHazardFields } from '#shared/scenario/fields'
-import type { Inject } from '#shared/scenario/schema'
 import { assessmentAt, type Published, publishedSolutions } from './assessments'
 import { findIdempotent, liveWrite, type LiveWriter } from './record'
 import type { LiveExercise } from './types'
 
 /** An inject as the live services use it: a scenario inject, or an ad-hoc message's definition. */
-export type InjectDef = Pick<Inject, 'key' | 'at' | 'kind' | 'teams' | 'title' | 'body'> & Partial<Pick<Inject, 'solution' | 'decision' | 'expectedActions' | 'contingency' | 'attachments'>> & { phase: string | null; adhoc?: boolean }
+export type InjectDef = InjectDefinition
 
 type InjectRow = typeof schema.exerciseInjects.$inferSelect
 
@@ -24,7 +23,7 @@ export function injectRows(db: DB | Tx, exerciseId: string) {
 
 /** An inject of the exercise by key: the scenario's, or an ad-hoc message's stored definition. */
 export function injectDef(exercise: LiveExercise, key: string, row?: InjectRow | null): InjectDef | null {
-  if (row?.definition) return row.definition as unknown as InjectDef
+  if (row?.definition) return row.definition
   return exercise.scenario.injects.find(i => i.key === key) ?? null
 }
 
@@ -148,7 +147,7 @@ export function sendMessage(
       data,
     })
     w.tx.insert(schema.exerciseInjects).values({
-      exerciseId, injectKey: def.key, status: 'released', definition: def as unknown as Record<string, unknown>,
+      exerciseId, injectKey: def.key, status: 'released', definition: def,
       releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey,
     }).run()
     return { event, created: true }

@@ -55,8 +55,8 @@ export function audienceWhere(view: LiveView): SQL | undefined {
 
 function toStored(row: typeof schema.exerciseEvents.$inferSelect): StoredEvent {
   return {
-    seq: row.seq, type: row.type as LiveEventType, wallTime: row.wallTime, scenarioTime: row.scenarioTime,
-    actorId: row.actorId, audience: row.audience as Audience, data: row.payload as unknown as StoredEvent['data'],
+    seq: row.seq, type: row.type, wallTime: row.wallTime, scenarioTime: row.scenarioTime,
+    actorId: row.actorId, audience: row.audience, data: row.payload,
   }
 }
 
@@ -65,7 +65,7 @@ function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, 
     .from(schema.exerciseEvents).where(eq(schema.exerciseEvents.exerciseId, exerciseId)).get()!
   const row = tx.insert(schema.exerciseEvents).values({
     exerciseId, seq: next, type: e.type, wallTime, scenarioTime, actorId: e.actorId ?? null, audience: e.audience,
-    payload: e.data as unknown as Record<string, unknown>, idempotencyKey: e.idempotencyKey ?? null,
+    payload: e.data, idempotencyKey: e.idempotencyKey ?? null,
   }).returning().get()
   return toStored(row)
 }

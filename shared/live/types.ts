@@ -1,7 +1,7 @@
 /** Types of the live exercise: the clock, the event record as clients receive it, and its payloads. */
 import type { Assessment, Percentiles } from '../hazard/types'
 import type { OrbitSolution } from '../hazard/schema'
-import type { Decision } from '../scenario/schema'
+import type { Decision, Inject } from '../scenario/schema'
 
 export type ExerciseStatus = 'planned' | 'running' | 'paused' | 'ended'
 
@@ -185,3 +185,8 @@ export interface LiveReady {
   lastSeq: number
   serverTime: number
 }
+
+/** An inject as the live services use it: a scenario inject, or an ad-hoc message's stored definition. */
+export type InjectDefinition = Pick<Inject, 'key' | 'at' | 'kind' | 'teams' | 'title' | 'body'>
+  & Partial<Pick<Inject, 'solution' | 'decision' | 'expectedActions' | 'contingency' | 'attachments'>>
+  & { phase: string | null; adhoc?: boolean }
