@@ -54,10 +54,11 @@ export function audienceWhere(view: LiveView): SQL | undefined {
 }
 
 function toStored(row: typeof schema.exerciseEvents.$inferSelect): StoredEvent {
+  // A row pairs its type and payload as written by `append`; the column types cannot say so.
   return {
     seq: row.seq, type: row.type, wallTime: row.wallTime, scenarioTime: row.scenarioTime,
     actorId: row.actorId, audience: row.audience, data: row.payload,
-  }
+  } as StoredEvent
 }
 
 function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, scenarioTime: number): StoredEvent {

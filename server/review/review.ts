@@ -90,7 +90,7 @@ export function replayRecord(exerciseId: string) {
   const { exercise, events } = reviewRecord(exerciseId)
   const slim = events.map((e) => {
     if (e.type !== 'solution.published') return e
-    const { assessment: _a, ...data } = e.data as SolutionPublishedData
+    const { assessment: _a, ...data } = e.data
     return { ...e, data }
   })
   return {

@@ -155,25 +155,29 @@ export interface EventDataMap {
 }
 export type LiveEventType = keyof EventDataMap
 
-/** One event as a reader receives it (socket message `event`, GET …/events). */
-export interface LiveEvent<T extends LiveEventType = LiveEventType> {
-  seq: number
-  type: T
-  wallTime: string
-  scenarioTime: string
-  data: EventDataMap[T] | WallSolutionData
-}
+/** What a reader receives as an event's data: the wall gets a slimmer solution publication. */
+export type ReaderDataMap = Omit<EventDataMap, 'solution.published'> & { 'solution.published': SolutionPublishedData | WallSolutionData }
 
-/** An event as stored: full payload and its audience. */
-export interface StoredEvent {
-  seq: number
-  type: LiveEventType
-  wallTime: number
-  scenarioTime: number
-  actorId: string | null
-  audience: Audience
-  data: EventDataMap[LiveEventType]
-}
+/**
+ * One event as a reader receives it (socket message `event`, GET …/events): a union discriminated
+ * by `type`, so that `e.type === 'inject.released'` narrows `e.data` to InjectData.
+ */
+export type LiveEvent<T extends LiveEventType = LiveEventType> = {
+  [K in T]: { seq: number; type: K; wallTime: string; scenarioTime: string; data: ReaderDataMap[K] }
+}[T]
+
+/** An event as stored: full payload and its audience; discriminated by `type` like LiveEvent. */
+export type StoredEvent<T extends LiveEventType = LiveEventType> = {
+  [K in T]: {
+    seq: number
+    type: K
+    wallTime: number
+    scenarioTime: number
+    actorId: string | null
+    audience: Audience
+    data: EventDataMap[K]
+  }
+}[T]
 
 /** Sent on the socket after the replay of missed events: who you are here and the clock now. */
 export interface LiveReady {

@@ -87,7 +87,7 @@ export function sanitise(event: StoredEvent, view: LiveView): LiveEvent | null {
     seq: event.seq, type: event.type, data,
     wallTime: new Date(event.wallTime).toISOString(),
     scenarioTime: new Date(event.scenarioTime).toISOString(),
-  }
+  } as LiveEvent
 }
 
 /** Socket.IO room names of an exercise. */

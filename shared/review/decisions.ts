@@ -3,7 +3,7 @@
  * decision, and every team it went to, the time from release to the team's first response, set
  * against the decision deadline (scenario time) — then summarised per team and per phase.
  */
-import type { InjectData, ResponseData, StoredEvent } from '../live/types'
+import type { ResponseData, StoredEvent } from '../live/types'
 import { phaseAt } from '../live/schedule'
 import type { Scenario } from '../scenario/schema'
 
@@ -84,14 +84,14 @@ export function decisionSummary(
   const responses = new Map<string, Array<{ e: StoredEvent; d: ResponseData }>>()
   for (const e of sorted) {
     if (e.type !== 'response.submitted') continue
-    const d = e.data as ResponseData
+    const d = e.data
     const k = `${d.injectKey}\u0000${d.teamKey}`
     responses.set(k, [...(responses.get(k) ?? []), { e, d }])
   }
   const rows: DecisionRow[] = []
   for (const e of sorted) {
     if (e.type !== 'inject.released' && e.type !== 'message.sent') continue
-    const d = e.data as InjectData
+    const d = e.data
     if (!d.decision) continue
     const deadline = Date.parse(d.decision.deadline)
     for (const teamKey of d.teams) {

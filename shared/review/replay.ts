@@ -6,7 +6,7 @@
 import { foldEvents, type Feed } from '../live/fold'
 import { phaseAt } from '../live/schedule'
 import { canSee } from '../live/visibility'
-import type { InjectData, LiveEvent, LiveView, StoredEvent } from '../live/types'
+import type { LiveEvent, LiveView, StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
 
 /** The rooms a reviewer can look through: every team, then the control desk, the evaluators and the wall. */
@@ -21,7 +21,7 @@ export function replayRooms(scenario: Pick<Scenario, 'teams'>): Array<{ id: stri
 
 function strip(e: StoredEvent, view: LiveView): LiveEvent['data'] {
   if ((view.kind === 'player' || view.kind === 'wall') && (e.type === 'inject.released' || e.type === 'message.sent')) {
-    const { expectedActions: _e, contingency: _c, ...rest } = e.data as InjectData
+    const { expectedActions: _e, contingency: _c, ...rest } = e.data
     if (view.kind === 'wall') {
       const { decision: _d, attachments: _a, ...wall } = rest
       return wall
@@ -42,7 +42,7 @@ export function roomEvents(events: readonly StoredEvent[], view: LiveView, seq: 
       data: strip(e, view),
       wallTime: new Date(e.wallTime).toISOString(),
       scenarioTime: new Date(e.scenarioTime).toISOString(),
-    }))
+    }) as LiveEvent)
 }
 
 /** A room's desk at `seq`: its feed (injects with the bodies current then, responses, solutions …). */

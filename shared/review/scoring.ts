@@ -4,7 +4,7 @@
  * every two evaluators who rated the same tasks (Cohen's kappa, see agreement.ts) and the tasks
  * they rated differently, for the hotwash.
  */
-import type { ObservationData, PersonRef, Rating, ScoreData, StoredEvent } from '../live/types'
+import type { PersonRef, Rating, StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
 import { cohenKappa, type KappaResult } from './agreement'
 import { RATINGS } from './plan'
@@ -86,7 +86,7 @@ function latestRatings(events: readonly StoredEvent[]): Map<string, Map<string, 
   const out = new Map<string, Map<string, RatingEntry>>()
   for (const e of [...events].sort((a, b) => a.seq - b.seq)) {
     if (e.type !== 'score.recorded') continue
-    const d = e.data as ScoreData
+    const d = e.data
     const k = `${d.criterionKey}/${d.taskKey}`
     const byEvaluator = out.get(k) ?? new Map<string, RatingEntry>()
     const before = byEvaluator.get(d.by.id)
@@ -127,7 +127,7 @@ function agreementPairs(latest: Map<string, Map<string, RatingEntry>>, evaluator
 export function scoringSummary(events: readonly StoredEvent[], scenario: Pick<Scenario, 'objectives' | 'criteria'>): ScoringSummary {
   const latest = latestRatings(events)
   const observations: ObservationEntry[] = events.filter(e => e.type === 'observation.recorded').sort((a, b) => a.seq - b.seq).map((e) => {
-    const d = e.data as ObservationData
+    const d = e.data
     return {
       id: d.id,
       seq: e.seq,

@@ -1,8 +1,5 @@
 /** The exercise timeline as rows: one per event of the record, for the exports and the review desk. */
-import type {
-  ClockChangedData, InjectData, InjectHeldData, InjectRevisedData, ObservationData, ResponseData,
-  ScoreData, SolutionPublishedData, StoredEvent,
-} from '../live/types'
+import type { StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
 
 export interface TimelineRow {
@@ -38,7 +35,7 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
   const none = { teams: '', phase: '', injectKey: '', summary: '', detail: '' }
   switch (e.type) {
     case 'clock.changed': {
-      const d = e.data as ClockChangedData
+      const d = e.data
       return {
         ...none,
         summary: `Clock: ${d.action}${d.clock.paused ? ' (paused)' : ''}`,
@@ -46,7 +43,7 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
       }
     }
     case 'solution.published': {
-      const d = e.data as SolutionPublishedData
+      const d = e.data
       return {
         ...none,
         summary: `Orbit solution published: ${d.label}`,
@@ -55,7 +52,7 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
     }
     case 'inject.released':
     case 'message.sent': {
-      const d = e.data as InjectData
+      const d = e.data
       return {
         teams: d.teams.map(teamName).join('; '), phase: d.phase ?? '', injectKey: d.key,
         summary: `${d.adhoc ? 'Message' : 'Inject released'}: ${d.title}`,
@@ -67,7 +64,7 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
       }
     }
     case 'inject.revised': {
-      const d = e.data as InjectRevisedData
+      const d = e.data
       return {
         ...none,
         teams: d.teams.map(teamName).join('; '),
@@ -77,11 +74,11 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
       }
     }
     case 'inject.held': {
-      const d = e.data as InjectHeldData
+      const d = e.data
       return { ...none, teams: d.teams.map(teamName).join('; '), injectKey: d.key, summary: `Inject held: ${d.title}` }
     }
     case 'response.submitted': {
-      const d = e.data as ResponseData
+      const d = e.data
       return {
         ...none,
         teams: teamName(d.teamKey),
@@ -91,15 +88,15 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
       }
     }
     case 'score.recorded': {
-      const d = e.data as ScoreData
+      const d = e.data
       return { ...none, summary: `Rating ${d.rating}: ${d.criterionKey} / ${d.taskKey}`, detail: d.note }
     }
     case 'observation.recorded': {
-      const d = e.data as ObservationData
+      const d = e.data
       return { ...none, teams: d.teamKey ? teamName(d.teamKey) : '', injectKey: d.injectKey ?? '', summary: 'Observation', detail: d.text }
     }
     default:
-      return { ...none, summary: e.type }
+      return { ...none, summary: (e as StoredEvent).type }
   }
 }
 
