@@ -55,7 +55,7 @@ export function useResponseOutbox(exerciseId: string) {
     if (import.meta.client && navigator.onLine === false) return enqueue()
     try {
       const res = await post(r)
-      return { state: 'sent', response: res.event!.data as ResponseData }
+      return { state: 'sent', response: res.event!.data }
     }
     catch (e) {
       if (isNetworkFailure(e)) return enqueue()

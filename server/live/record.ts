@@ -28,7 +28,7 @@ export interface LiveWriter {
   /** Scenario time of the write, ms (held within the scenario window). */
   scenarioNow: number
   /** Appends an event with the next sequence number; it is emitted once the transaction commits. */
-  append: <T extends LiveEventType>(e: NewEvent<T>) => StoredEvent
+  append: <T extends LiveEventType>(e: NewEvent<T>) => StoredEvent<T>
 }
 
 /** An exercise with its frozen scenario; 404 when missing, 409 when it has no scenario. */
@@ -89,7 +89,7 @@ export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T 
     const append = <E extends LiveEventType>(e: NewEvent<E>) => {
       const stored = insertEvent(tx, exerciseId, e as NewEvent, now, e.scenarioTime ?? scenarioNow)
       appended.push(stored)
-      return stored
+      return stored as StoredEvent<E>
     }
     return work({ tx, exercise, clock, bounds, now, scenarioNow, append })
   }, { behavior: 'immediate' })
@@ -98,19 +98,18 @@ export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T 
 }
 
 /** The event a caller already wrote with this idempotency key (null if none); 409 when it was another kind of write. */
-export function findIdempotent(tx: Tx, exerciseId: string, actorId: string, key: string, type: LiveEventType): StoredEvent | null {
-  const row = tx.select().from(schema.exerciseEvents).where(and(
-    eq(
-      schema.exerciseEvents.exerciseId,
-      exerciseId,
-    ), eq(schema.exerciseEvents.actorId, actorId), eq(schema.exerciseEvents.idempotencyKey, key),
-  )).get()
+export function findIdempotent<T extends LiveEventType>(
+  tx: Tx, exerciseId: string, actorId: string, key: string, type: T,
+): StoredEvent<T> | null {
+  const e = schema.exerciseEvents
+  const row = tx.select().from(e)
+    .where(and(eq(e.exerciseId, exerciseId), eq(e.actorId, actorId), eq(e.idempotencyKey, key))).get()
   if (!row) return null
   if (row.type !== type) throw conflict(
     'This idempotency key was already used for another write.',
     { issues: [{ path: 'idempotencyKey', message: 'already used' }] },
   )
-  return toStored(row)
+  return toStored(row) as StoredEvent<T>
 }
 
 /** Stored events of an exercise after `since` that a view may read, in sequence order. */

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { decisionSummary } from '#shared/review/decisions'
 import { eventFacets } from '#shared/review/facets'
 import { scoringSummary } from '#shared/review/scoring'
-import type { SolutionPublishedData, StoredEvent } from '#shared/live/types'
+import type { StoredEvent } from '#shared/live/types'
 import { hasCapability } from '#shared/utils/permissions'
 import { clockNow, liveExercise, storedEvents } from '../live'
 import { exerciseTimeline } from './exports'
@@ -104,14 +104,12 @@ export function replayRecord(exerciseId: string) {
 
 /** A published solution of the exercise with its stored assessment; 404 when it was not published. */
 export function publishedSolution(exerciseId: string, key: string) {
-  const row = useDB().select().from(schema.exerciseSolutions).where(eq(
-    schema.exerciseSolutions.exerciseId,
-    exerciseId,
-  )).all().find(s => s.solutionKey === key)
+  const row = useDB().select().from(schema.exerciseSolutions)
+    .where(eq(schema.exerciseSolutions.exerciseId, exerciseId)).all().find(s => s.solutionKey === key)
   if (!row) throw notFound('This solution was not published in this exercise.')
   const event = storedEvents(exerciseId, { kind: 'control' }, row.seq - 1, 1)[0]
-  const d = event?.data as SolutionPublishedData | undefined
-  if (!d || event?.type !== 'solution.published') throw notFound('This solution was not published in this exercise.')
+  if (event?.type !== 'solution.published') throw notFound('This solution was not published in this exercise.')
+  const d = event.data
   return {
     key: d.key,
     label: d.label,

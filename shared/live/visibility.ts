@@ -80,9 +80,9 @@ export function sanitise(event: StoredEvent, view: LiveView): LiveEvent | null {
   let data: LiveEvent['data'] = event.data
   const restricted = view.kind === 'player' || view.kind === 'wall'
   if (restricted && (event.type === 'inject.released' || event.type === 'message.sent')) {
-    data = view.kind === 'wall' ? forWall(event.data as InjectData) : forPlayer(event.data as InjectData)
+    data = view.kind === 'wall' ? forWall(event.data) : forPlayer(event.data)
   }
-  if (view.kind === 'wall' && event.type === 'solution.published') data = wallSolution(event.data as SolutionPublishedData)
+  if (view.kind === 'wall' && event.type === 'solution.published') data = wallSolution(event.data)
   return {
     seq: event.seq, type: event.type, data,
     wallTime: new Date(event.wallTime).toISOString(),

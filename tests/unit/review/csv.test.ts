@@ -41,6 +41,8 @@ describe('guardCsvCell', () => {
       { minLength: 1, maxLength: 6 },
     ), (rows) => {
       const csv = Papa.unparse(rows.map(r => r.map(guardCsvCell)), { newline: '\r\n' })
+      // One empty cell makes an empty file, which reads back as no rows at all: nothing to check.
+      fc.pre(csv !== '')
       const back = Papa.parse<string[]>(csv, { newline: '\r\n', delimiter: ',' }).data
       for (const cell of back.flat()) expect(/^[=+\-@\t\r]/.test(cell)).toBe(false)
       expect(back.flat()).toEqual(rows.flat().map(guardCsvCell))
