@@ -62,7 +62,11 @@ export default defineNuxtConfig({
   nitro: {
     output: { dir: process.env.BW_OUTPUT_DIR || '.output' },
     // Node 20's `module-sync` export condition is not followed by the file tracer (exceljs → async-function and friends).
-    externals: { traceInclude: ['async-function', 'generator-function', 'async-generator-function'].map(p => `node_modules/${p}/require.mjs`) },
+    externals: { traceInclude: [
+      'async-function',
+      'generator-function',
+      'async-generator-function',
+    ].map(p => `node_modules/${p}/require.mjs`) },
     experimental: { websocket: true },
   },
   vite: {
@@ -70,6 +74,12 @@ export default defineNuxtConfig({
   },
   typescript: { strict: true },
   telemetry: false,
-  eslint: { config: { stylistic: { indent: 2, quotes: 'single', semi: false, braceStyle: 'stroustrup', commaDangle: 'always-multiline' } } },
+  eslint: { config: { stylistic: {
+    indent: 2,
+    quotes: 'single',
+    semi: false,
+    braceStyle: 'stroustrup',
+    commaDangle: 'always-multiline',
+  } } },
   tailwindcss: { cssPath: '~/assets/css/main.css' },
 })

@@ -15,7 +15,7 @@ export default defineConfig({
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
           environment: 'node',
-          globalSetup: ['tests/integration/global-setup.ts'],
+          globalSetup: ['tests/support/global-setup.ts'],
           testTimeout: 30_000,
           hookTimeout: 120_000,
           fileParallelism: false,

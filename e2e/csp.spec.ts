@@ -45,7 +45,10 @@ async function visit(page: Page, watch: Watch, path: string, ready?: (page: Page
   await page.waitForLoadState('load')
   // Hydrated: the module script ran, and so did the inline config script before it (Nuxt needs its
   // window.__NUXT__.config to start), so its hash matched.
-  await expect.poll(() => page.evaluate(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__), { message: path }).toBe(true)
+  await expect.poll(
+    () => page.evaluate(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__),
+    { message: path },
+  ).toBe(true)
   if (ready) await ready(page)
   await page.waitForTimeout(300)
   watch.violations.push(...(await page.evaluate(() => (window as unknown as { __csp?: string[] }).__csp ?? [])).map(v => `${path}: ${v}`))
@@ -74,21 +77,47 @@ test('every main page works under the Content-Security-Policy, and inject HTML s
   watches.push(fac.watch)
   const scenarios = await api(fac.page, 'get', '/api/scenarios') as Array<{ id: string; key: string }>
   const demo = scenarios.find(s => s.key === 'demo-ocean-impact')!
-  const { id } = await api(fac.page, 'post', `/api/scenarios/${demo.id}/exercises`, { title: `CSP drill ${Date.now().toString(36)}` }) as { id: string }
-  for (const [who, role, teamKey] of [['science', 'player', 'science'], ['evaluator', 'evaluator', null], ['analyst', 'analyst', null]] as const) {
+  const { id } = await api(
+    fac.page,
+    'post',
+    `/api/scenarios/${demo.id}/exercises`,
+    { title: `CSP drill ${Date.now().toString(36)}` },
+  ) as { id: string }
+  for (const [who, role, teamKey] of [
+    ['science', 'player', 'science'],
+    ['evaluator', 'evaluator', null],
+    ['analyst', 'analyst', null],
+  ] as const) {
     await api(fac.page, 'post', `/api/exercises/${id}/members`, { email: `${who}@brinkwater.test`, role, teamKey })
   }
   await api(fac.page, 'post', `/api/exercises/${id}/clock`, { action: 'start' })
   await api(fac.page, 'post', `/api/exercises/${id}/solutions/s1-discovery/publish`)
   const wall = await api(fac.page, 'post', `/api/exercises/${id}/wall-tokens`, { label: 'CSP wall' }) as { path: string }
-  const live = async (page: Page) => { await expect(page.getByTestId('live-status')).toHaveAttribute('data-status', 'live', { timeout: 15_000 }) }
-  for (const path of ['/', '/scenarios', `/scenarios/${demo.id}`, `/brief/${demo.id}`, `/exercises/${id}`]) await visit(fac.page, fac.watch, path)
+  const live = async (page: Page) => {
+    await expect(page.getByTestId('live-status')).toHaveAttribute(
+      'data-status',
+      'live',
+      { timeout: 15_000 },
+    )
+  }
+  for (const path of [
+    '/',
+    '/scenarios',
+    `/scenarios/${demo.id}`,
+    `/brief/${demo.id}`,
+    `/exercises/${id}`,
+  ]) await visit(fac.page, fac.watch, path)
   await visit(fac.page, fac.watch, `/exercises/${id}/control`, live)
 
   const sci = await person(browser, 'science@brinkwater.test')
   watches.push(sci.watch)
   await visit(sci.page, sci.watch, `/exercises/${id}/room`, live)
-  await api(fac.page, 'post', `/api/exercises/${id}/messages`, { teams: ['science'], title: 'Payload message', body: PAYLOAD, kind: 'message', idempotencyKey: `csp-${Date.now()}` })
+  await api(
+    fac.page,
+    'post',
+    `/api/exercises/${id}/messages`,
+    { teams: ['science'], title: 'Payload message', body: PAYLOAD, kind: 'message', idempotencyKey: `csp-${Date.now()}` },
+  )
   const body = sci.page.getByTestId('inject-body').filter({ hasText: 'Heads-up' })
   await expect(body).toBeVisible({ timeout: 15_000 })
   await expect(body.locator('strong')).toHaveText('Heads-up')
@@ -106,7 +135,11 @@ test('every main page works under the Content-Security-Policy, and inject HTML s
 
   const analyst = await person(browser, 'analyst@brinkwater.test')
   watches.push(analyst.watch)
-  for (const path of [`/exercises/${id}/review`, `/exercises/${id}/report`, `/exercises/${id}/feedback`]) await visit(analyst.page, analyst.watch, path)
+  for (const path of [
+    `/exercises/${id}/review`,
+    `/exercises/${id}/report`,
+    `/exercises/${id}/feedback`,
+  ]) await visit(analyst.page, analyst.watch, path)
 
   const wallView = await person(browser, null)
   watches.push(wallView.watch)

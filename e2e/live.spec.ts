@@ -20,7 +20,11 @@ async function freshExercise(page: Page): Promise<string> {
   const created = await page.request.post(`/api/scenarios/${demo.id}/exercises`, { data: { title: TITLE } })
   expect(created.status()).toBe(201)
   const { id } = await created.json() as { id: string }
-  for (const [email, role, teamKey] of [['science', 'player', 'science'], ['civil', 'player', 'civil'], ['evaluator', 'evaluator', null]] as const) {
+  for (const [email, role, teamKey] of [
+    ['science', 'player', 'science'],
+    ['civil', 'player', 'civil'],
+    ['evaluator', 'evaluator', null],
+  ] as const) {
     const added = await page.request.post(`/api/exercises/${id}/members`, { data: { email: `${email}@brinkwater.test`, role, teamKey } })
     expect(added.status()).toBe(201)
   }
@@ -29,7 +33,10 @@ async function freshExercise(page: Page): Promise<string> {
 
 /** Responses recorded for an inject, as the facilitator reads the event record. */
 async function responsesTo(page: Page, exerciseId: string, injectKey: string) {
-  const { events } = await (await page.request.get(`/api/exercises/${exerciseId}/events?since=0`)).json() as { events: Array<{ type: string; data: { injectKey?: string } }> }
+  const { events } = await (await page.request.get(`/api/exercises/${exerciseId}/events?since=0`)).json() as { events: Array<{
+    type: string
+    data: { injectKey?: string }
+  }> }
   return events.filter(e => e.type === 'response.submitted' && e.data.injectKey === injectKey).length
 }
 

@@ -18,7 +18,10 @@ async function playedDrill(page: Page, request: APIRequestContext): Promise<stri
   const f = page.request
   await ok(await f.post('/api/auth/login', { data: { email: FACILITATOR, password: PASSWORD } }), 'facilitator login')
   const demo = (await (await f.get('/api/scenarios')).json() as Array<{ id: string; key: string }>).find(s => s.key === 'demo-ocean-impact')!
-  const ex = (await (await ok(await f.post(`/api/scenarios/${demo.id}/exercises`, { data: { title: `Review walk-through ${Date.now()}` } }), 'start exercise')).json()).id as string
+  const ex = (await (await ok(
+    await f.post(`/api/scenarios/${demo.id}/exercises`, { data: { title: `Review walk-through ${Date.now()}` } }),
+    'start exercise',
+  )).json()).id as string
   await ok(await f.post(`/api/exercises/${ex}/members`, { data: { email: ANALYST, role: 'analyst' } }), 'add analyst')
   await ok(await f.post(`/api/exercises/${ex}/members`, { data: { email: PLAYER, role: 'player', teamKey: 'science' } }), 'add player')
   await ok(await f.post(`/api/exercises/${ex}/members`, { data: { email: EVALUATOR, role: 'evaluator' } }), 'add evaluator')
@@ -27,13 +30,47 @@ async function playedDrill(page: Page, request: APIRequestContext): Promise<stri
   await ok(await f.post(`/api/exercises/${ex}/solutions/s1-discovery/publish`), 'publish')
   await ok(await f.post(`/api/exercises/${ex}/injects/notify-civil-protection/release`), 'release')
   await ok(await request.post('/api/auth/login', { data: { email: PLAYER, password: PASSWORD } }), 'player login')
-  await ok(await request.post(`/api/exercises/${ex}/responses`, { data: { injectKey: 'notify-civil-protection', choice: 'Formal notification under the hazard plan', text: 'Phoned the duty officer.', idempotencyKey: `e2e-${Date.now()}` } }), 'response')
+  await ok(
+    await request.post(
+      `/api/exercises/${ex}/responses`,
+      { data: {
+        injectKey: 'notify-civil-protection',
+        choice: 'Formal notification under the hazard plan',
+        text: 'Phoned the duty officer.',
+        idempotencyKey: `e2e-${Date.now()}`,
+      } },
+    ),
+    'response',
+  )
   const evaluator = await api.newContext({ baseURL: test.info().project.use.baseURL })
   await ok(await evaluator.post('/api/auth/login', { data: { email: EVALUATOR, password: PASSWORD } }), 'evaluator login')
   for (const [taskKey, rating] of [['notify-early', 'P'], ['joint-cell', 'M']] as const) {
-    await ok(await evaluator.post(`/api/exercises/${ex}/scores`, { data: { criterionKey: 'notification-and-coordination', taskKey, rating, note: `Seen at the ${taskKey} step.`, idempotencyKey: `e2e-${taskKey}-${Date.now()}` } }), 'score')
+    await ok(
+      await evaluator.post(
+        `/api/exercises/${ex}/scores`,
+        { data: {
+          criterionKey: 'notification-and-coordination',
+          taskKey,
+          rating,
+          note: `Seen at the ${taskKey} step.`,
+          idempotencyKey: `e2e-${taskKey}-${Date.now()}`,
+        } },
+      ),
+      'score',
+    )
   }
-  await ok(await evaluator.post(`/api/exercises/${ex}/observations`, { data: { text: 'The cell phoned before writing.', injectKey: 'notify-civil-protection', teamKey: 'science', idempotencyKey: `e2e-obs-${Date.now()}` } }), 'observation')
+  await ok(
+    await evaluator.post(
+      `/api/exercises/${ex}/observations`,
+      { data: {
+        text: 'The cell phoned before writing.',
+        injectKey: 'notify-civil-protection',
+        teamKey: 'science',
+        idempotencyKey: `e2e-obs-${Date.now()}`,
+      } },
+    ),
+    'observation',
+  )
   await evaluator.dispose()
   await ok(await f.post(`/api/exercises/${ex}/clock`, { data: { action: 'end' } }), 'end clock')
   await page.context().clearCookies()
@@ -116,8 +153,16 @@ test('the after-action lead reviews a drill, edits the plan and downloads every 
   await expect(row).toHaveCount(1)
   await row.getByTestId('plan-status').selectOption('in-progress')
   await expect(row.getByTestId('plan-row-state')).toHaveText('Saved')
-  const items = await (await page.request.get(`/api/exercises/${ex}/improvements`)).json() as Array<{ action: string; status: string; dueDate: string }>
-  expect(items).toEqual([expect.objectContaining({ action: 'Agree escalation thresholds for the hazard plan', status: 'in-progress', dueDate: '2031-12-31' })])
+  const items = await (await page.request.get(`/api/exercises/${ex}/improvements`)).json() as Array<{
+    action: string
+    status: string
+    dueDate: string
+  }>
+  expect(items).toEqual([expect.objectContaining({
+    action: 'Agree escalation thresholds for the hazard plan',
+    status: 'in-progress',
+    dueDate: '2031-12-31',
+  })])
   await shot(page, 'review-plan-laptop')
 
   // Every export downloads with its name and content.
@@ -164,7 +209,14 @@ test('the review desk on a projector in the dark theme', async ({ page, request 
   await expect(page.locator('html')).toHaveClass(/dark/)
   await expect(page.getByTestId('timeline-row').first()).toBeVisible()
   await shot(page, 'review-timeline-projector-dark')
-  const ready = { replay: 'hazard-brief', decisions: 'decision-row', scoring: 'score-objective', hotwash: 'feedback-count', plan: 'plan-new', exports: 'send-report' } as const
+  const ready = {
+    replay: 'hazard-brief',
+    decisions: 'decision-row',
+    scoring: 'score-objective',
+    hotwash: 'feedback-count',
+    plan: 'plan-new',
+    exports: 'send-report',
+  } as const
   for (const [tab, testId] of Object.entries(ready)) {
     await page.getByTestId(`review-tab-${tab}`).click()
     await expect(page.getByTestId(testId).first()).toBeVisible({ timeout: 20_000 })

@@ -123,7 +123,11 @@ test('importing a broken file lists each problem with line, column and path; a k
   await expect(error).toContainText(/\d+:\d+ injects\[\d+\]\.teams\[0\]: unknown team "ops"/)
   await shot(page, 'scenario-import-errors')
 
-  await dialog.getByLabel('Scenario file').setInputFiles({ name: 'airburst.yaml', mimeType: 'application/yaml', buffer: Buffer.from(original) })
+  await dialog.getByLabel('Scenario file').setInputFiles({
+    name: 'airburst.yaml',
+    mimeType: 'application/yaml',
+    buffer: Buffer.from(original),
+  })
   await dialog.getByRole('button', { name: 'Import', exact: true }).click()
   await expect(error).toContainText('already has a scenario')
   await dialog.getByRole('button', { name: 'Import as a copy' }).click()

@@ -23,7 +23,12 @@ const RELEASED: ReadonlySet<InjectState> = new Set(['released', 'answered', 'ove
  * feed, and due/overdue from the ticking scenario clock. Also the next scheduled inject and the phase
  * (that of the latest scenario inject due by now, as the server reckons it).
  */
-export function useDeskSchedule(schedule: MaybeRefOrGetter<ScheduleRow[]>, feed: MaybeRefOrGetter<Feed>, scenarioNow: MaybeRefOrGetter<number | null>, phases: MaybeRefOrGetter<Array<{ key: string }>>) {
+export function useDeskSchedule(
+  schedule: MaybeRefOrGetter<ScheduleRow[]>,
+  feed: MaybeRefOrGetter<Feed>,
+  scenarioNow: MaybeRefOrGetter<number | null>,
+  phases: MaybeRefOrGetter<Array<{ key: string }>>,
+) {
   const rows = computed<ScheduleRow[]>(() => {
     const f = toValue(feed)
     const t = toValue(scenarioNow) ?? 0
@@ -32,8 +37,16 @@ export function useDeskSchedule(schedule: MaybeRefOrGetter<ScheduleRow[]>, feed:
     return toValue(schedule).map((r) => {
       const isReleased = released.has(r.key) || RELEASED.has(r.state)
       const isHeld = !isReleased && (held.has(r.key) || r.state === 'held')
-      const answered = new Set([...Object.keys(r.answered).filter(k => r.answered[k]), ...f.responses.filter(x => x.injectKey === r.key).map(x => x.teamKey)])
-      const state = injectState({ at: Date.parse(r.at), deadline: r.deadline ? Date.parse(r.deadline) : null, teams: r.teams }, isHeld ? 'held' : isReleased ? 'released' : null, answered, t)
+      const answered = new Set([
+        ...Object.keys(r.answered).filter(k => r.answered[k]),
+        ...f.responses.filter(x => x.injectKey === r.key).map(x => x.teamKey),
+      ])
+      const state = injectState(
+        { at: Date.parse(r.at), deadline: r.deadline ? Date.parse(r.deadline) : null, teams: r.teams },
+        isHeld ? 'held' : isReleased ? 'released' : null,
+        answered,
+        t,
+      )
       return { ...r, state, answered: Object.fromEntries(r.teams.map(k => [k, answered.has(k)])) }
     })
   })

@@ -37,7 +37,13 @@ function open(store: ReturnType<typeof useLiveStore>, target: LiveTarget) {
   const who = typeof target === 'string' ? { exerciseId: target } : target
   // auth is read on every (re)connection, so a reconnect asks for what came after the last seq held.
   // tryAllTransports: where a proxy (hotel and conference networks) blocks WebSocket, fall back to long-polling.
-  const s = io({ path: '/socket.io/', transports: ['websocket', 'polling'], tryAllTransports: true, forceNew: true, auth: cb => cb({ ...who, lastSeq: store.lastSeq }) })
+  const s = io({
+    path: '/socket.io/',
+    transports: ['websocket', 'polling'],
+    tryAllTransports: true,
+    forceNew: true,
+    auth: cb => cb({ ...who, lastSeq: store.lastSeq }),
+  })
   s.on('event', (e: LiveEvent) => { if (store.ingest(e)) dispatch(e) })
   s.on('live:ready', (r: LiveReady) => {
     store.ready(r)

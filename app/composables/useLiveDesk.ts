@@ -1,5 +1,5 @@
 import { emptyFeed, type Feed } from '~~/shared/live/fold'
-import type { InjectData, LiveEvent } from '~~/shared/live/types'
+import type { LiveEvent } from '~~/shared/live/types'
 
 interface DeskOptions {
   /** Fetch the snapshot again after every event (the control desk's schedule); otherwise only when the phase may have moved. */
@@ -37,7 +37,7 @@ export function useLiveDesk(exerciseId: string, opts: DeskOptions = {}) {
     }, delay)
   }
   const movesPhase = (e: LiveEvent) => e.type === 'clock.changed'
-    || ((e.type === 'inject.released' || e.type === 'message.sent') && (e.data as InjectData).phase !== data.value?.phase)
+    || ((e.type === 'inject.released' || e.type === 'message.sent') && e.data.phase !== data.value?.phase)
   live.on('*', (e) => { if (opts.everyEvent || movesPhase(e)) refreshSoon() })
   watch(() => store.status, (s) => { if (s === 'live') refreshSoon() })
   onMounted(() => { poll = setInterval(() => { if (store.running) refreshSoon() }, opts.pollMs ?? 60_000) })
@@ -64,7 +64,10 @@ export function useLiveDesk(exerciseId: string, opts: DeskOptions = {}) {
   const events = computed(() => store.events.slice())
   const clock = computed(() => (caughtUp.value ? store.clock : null) ?? data.value?.clock ?? null)
   /** Scenario time now (ms): ticking once live; the snapshot's moment before that. */
-  const scenarioNow = computed<number | null>(() => (caughtUp.value && store.scenarioNow !== null ? store.scenarioNow : data.value ? Date.parse(data.value.scenarioNow) : null))
+  const scenarioNow = computed<number | null>(() => {
+    if (caughtUp.value && store.scenarioNow !== null) return store.scenarioNow
+    return data.value ? Date.parse(data.value.scenarioNow) : null
+  })
 
   return { live, store, snapshot, data, feed, events, clock, scenarioNow, caughtUp, refreshSoon }
 }

@@ -33,8 +33,16 @@ export function useResponseOutbox(exerciseId: string) {
     save()
   }
 
-  const post = (r: Omit<OutgoingResponse, 'queuedAt'>) => $fetch<{ event: LiveEvent<'response.submitted'> | null }>(`/api/exercises/${exerciseId}/responses`, {
-    method: 'POST', body: { injectKey: r.injectKey, choice: r.choice || null, text: r.text, idempotencyKey: r.idempotencyKey }, timeout: 15_000,
+  const post = (
+    r: Omit<OutgoingResponse,
+      'queuedAt'>,
+  ) => $fetch<{ event: LiveEvent<'response.submitted'> | null }>(`/api/exercises/${exerciseId}/responses`, {
+    method: 'POST', body: {
+      injectKey: r.injectKey,
+      choice: r.choice || null,
+      text: r.text,
+      idempotencyKey: r.idempotencyKey,
+    }, timeout: 15_000,
   })
 
   /** Sends a response now, or queues it when the server cannot be reached; a refusal (4xx) is thrown. */
@@ -47,7 +55,7 @@ export function useResponseOutbox(exerciseId: string) {
     if (import.meta.client && navigator.onLine === false) return enqueue()
     try {
       const res = await post(r)
-      return { state: 'sent', response: res.event!.data as ResponseData }
+      return { state: 'sent', response: res.event!.data }
     }
     catch (e) {
       if (isNetworkFailure(e)) return enqueue()

@@ -81,7 +81,10 @@ export const useScenarioEditor = defineStore('scenarioEditor', () => {
     if (!doc.value || saving.value) return false
     validateNow()
     if (localIssues.value.length) {
-      notice.value = { kind: 'error', text: `Nothing was saved: fix the ${localIssues.value.length === 1 ? 'problem' : `${localIssues.value.length} problems`} listed below first.` }
+      notice.value = {
+        kind: 'error',
+        text: `Nothing was saved: fix the ${localIssues.value.length === 1 ? 'problem' : `${localIssues.value.length} problems`} listed below first.`,
+      }
       return false
     }
     saving.value = true

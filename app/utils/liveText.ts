@@ -12,7 +12,10 @@ export const scenarioDay = (t: number | string) => dayjs.utc(ms(t)).format('ddd 
 /** `09:00:12` (UTC). */
 export const scenarioClockText = (t: number | string) => dayjs.utc(ms(t)).format('HH:mm:ss')
 /** `4 Mar 09:00 UTC`, with the year when asked. */
-export const scenarioStamp = (t: number | string, withYear = false) => `${dayjs.utc(ms(t)).format(withYear ? 'D MMM YYYY HH:mm' : 'D MMM HH:mm')} UTC`
+export const scenarioStamp = (
+  t: number | string,
+  withYear = false,
+) => `${dayjs.utc(ms(t)).format(withYear ? 'D MMM YYYY HH:mm' : 'D MMM HH:mm')} UTC`
 /** Local wall time `14:32` (the room's own clock). */
 export const wallHm = (t: number | string) => dayjs(ms(t)).format('HH:mm')
 /** Local wall time `14:32:05`. */
@@ -40,7 +43,12 @@ export function paceText(f: number): string {
   return `1 wall minute = ${shown} scenario ${shown === '1' ? unit.slice(0, -1) : unit}`
 }
 
-export const STATUS_WORDS: Record<ExerciseStatus, string> = { planned: 'Ready to start', running: 'Running', paused: 'Paused', ended: 'Ended' }
+export const STATUS_WORDS: Record<ExerciseStatus, string> = {
+  planned: 'Ready to start',
+  running: 'Running',
+  paused: 'Paused',
+  ended: 'Ended',
+}
 
 /** The four ratings of a critical task, in words (after the public US exercise doctrine). */
 export const RATING_MEANINGS: Record<Rating, string> = {

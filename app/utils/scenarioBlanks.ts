@@ -14,7 +14,12 @@ export function blankPhase(doc: Scenario): Phase {
 }
 
 export function blankObjective(doc: Scenario): Objective {
-  return { key: nextFreeKey('objective', doc.objectives.map(o => o.key)), title: 'New objective', description: 'What the teams should achieve.', capabilities: ['Operational Coordination'] }
+  return {
+    key: nextFreeKey('objective', doc.objectives.map(o => o.key)),
+    title: 'New objective',
+    description: 'What the teams should achieve.',
+    capabilities: ['Operational Coordination'],
+  }
 }
 
 export function blankSite(doc: Scenario): Site {

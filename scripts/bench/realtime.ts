@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { io, type Socket } from 'socket.io-client'
 import { parseScenarioYaml } from '../../shared/scenario/io'
-import { freePort } from '../../tests/integration/global-setup'
+import { freePort } from '../../tests/support/ports'
 
 const SOCKETS = Number(process.env.BENCH_SOCKETS) || 300
 const RELEASES = Number(process.env.BENCH_RELEASES) || 24
@@ -40,7 +40,10 @@ const cleanup = () => {
 process.on('exit', cleanup)
 
 async function call(cookie: string, method: string, path: string, body?: unknown) {
-  const res = await fetch(`${base}${path}`, { method, headers: { cookie, ...(body ? { 'content-type': 'application/json' } : {}) }, body: body ? JSON.stringify(body) : undefined })
+  const res = await fetch(
+    `${base}${path}`,
+    { method, headers: { cookie, ...(body ? { 'content-type': 'application/json' } : {}) }, body: body ? JSON.stringify(body) : undefined },
+  )
   const text = await res.text()
   return { status: res.status, json: text ? JSON.parse(text) : null, setCookie: res.headers.getSetCookie()[0] }
 }
@@ -63,11 +66,24 @@ for (const deadline = Date.now() + 60_000; ;) {
 }
 
 const who = ['facilitator', 'science', 'civil', 'comms', 'evaluator'] as const
-const cookies = Object.fromEntries(await Promise.all(who.map(async w => [w, await signIn(`${w}@brinkwater.test`)] as const))) as Record<typeof who[number], string>
+const cookies = Object.fromEntries(await Promise.all(who.map(async w => [
+  w,
+  await signIn(`${w}@brinkwater.test`),
+] as const))) as Record<typeof who[number], string>
 const scenarioList = await call(cookies.facilitator, 'GET', '/api/scenarios')
 const demo = (scenarioList.json as Array<{ id: string; key: string }>).find(s => s.key === 'demo-ocean-impact')!
-const exerciseId = (await call(cookies.facilitator, 'POST', `/api/scenarios/${demo.id}/exercises`, { title: 'Realtime bench' })).json.id as string
-for (const [w, role, teamKey] of [['science', 'player', 'science'], ['civil', 'player', 'civil'], ['comms', 'player', 'comms'], ['evaluator', 'evaluator', null]] as const) {
+const exerciseId = (await call(
+  cookies.facilitator,
+  'POST',
+  `/api/scenarios/${demo.id}/exercises`,
+  { title: 'Realtime bench' },
+)).json.id as string
+for (const [w, role, teamKey] of [
+  ['science', 'player', 'science'],
+  ['civil', 'player', 'civil'],
+  ['comms', 'player', 'comms'],
+  ['evaluator', 'evaluator', null],
+] as const) {
   await call(cookies.facilitator, 'POST', `/api/exercises/${exerciseId}/members`, { email: `${w}@brinkwater.test`, role, teamKey })
 }
 // Real time: nothing falls due on its own during the bench; every release is by hand.
@@ -85,7 +101,17 @@ const delays: number[] = []
 const received = new Map<string, number>()
 const t0 = performance.now()
 await Promise.all(plan.map(({ cookie }) => new Promise<void>((ok, fail) => {
-  const s = io(base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie }, auth: { exerciseId, lastSeq: 0 } })
+  const s = io(
+    base,
+    {
+      path: '/socket.io/',
+      transports: ['websocket'],
+      forceNew: true,
+      reconnection: false,
+      extraHeaders: { cookie },
+      auth: { exerciseId, lastSeq: 0 },
+    },
+  )
   sockets.push(s)
   s.on('event', (e: { type: string; data: { key: string } }) => {
     if (e.type !== 'inject.released') return

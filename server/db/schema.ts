@@ -2,12 +2,16 @@ import { sql } from 'drizzle-orm'
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import { EXERCISE_ROLES, SYSTEM_ROLES } from '../../shared/utils/roles'
 import type { Scenario } from '../../shared/scenario/schema'
+import type { Audience, EventDataMap, InjectDefinition, LiveEventType } from '../../shared/live/types'
 import { FINDING_KINDS, HOTWASH_KEYS, ITEM_STATUSES, POETE_ELEMENTS } from '../../shared/review/plan'
 
 const id = () => text('id').primaryKey().$defaultFn(() => crypto.randomUUID())
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
-  updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`).$onUpdate(() => new Date()),
+  updatedAt: integer(
+    'updated_at',
+    { mode: 'timestamp_ms' },
+  ).notNull().default(sql`(unixepoch('subsec') * 1000)`).$onUpdate(() => new Date()),
 }
 
 export const users = sqliteTable('users', {
@@ -144,12 +148,12 @@ export const exerciseEvents = sqliteTable('exercise_events', {
   id: id(),
   exerciseId: text('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
   seq: integer('seq').notNull(),
-  type: text('type').notNull(),
+  type: text('type').$type<LiveEventType>().notNull(),
   wallTime: integer('wall_time').notNull(),
   scenarioTime: integer('scenario_time').notNull(),
   actorId: text('actor_id').references(() => users.id, { onDelete: 'set null' }),
-  audience: text('audience').notNull(),
-  payload: text('payload', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+  audience: text('audience').$type<Audience>().notNull(),
+  payload: text('payload', { mode: 'json' }).$type<EventDataMap[LiveEventType]>().notNull(),
   /** A client's key for a write it may retry: one event per (exercise, actor, key). */
   idempotencyKey: text('idempotency_key'),
 }, t => [
@@ -165,7 +169,7 @@ export const exerciseInjects = sqliteTable('exercise_injects', {
   injectKey: text('inject_key').notNull(),
   status: text('status', { enum: ['held', 'released'] }).notNull(),
   /** Ad-hoc messages only: what the facilitator wrote (scenario injects live in the frozen scenario). */
-  definition: text('definition', { mode: 'json' }).$type<Record<string, unknown>>(),
+  definition: text('definition', { mode: 'json' }).$type<InjectDefinition>(),
   releasedSeq: integer('released_seq'),
   /** The solution the current body was rendered against (null: no hazard fields, or none published yet). */
   solutionKey: text('solution_key'),

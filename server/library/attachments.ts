@@ -82,10 +82,18 @@ export async function readUpload(event: H3Event, maxBytes: number, what: string)
   try { parts = await readMultipartFormData(event) }
   catch { throw createError({ statusCode: 400, message: 'Send the file as multipart/form-data in a field named "file".' }) }
   const file = parts?.find(p => p.name === 'file' && p.filename !== undefined)
-  if (!file) throw createError({ statusCode: 400, message: 'Send the file as multipart/form-data in a field named "file".', data: { issues: [{ path: 'file', message: 'Choose a file.' }] } })
+  if (!file) throw createError({
+    statusCode: 400,
+    message: 'Send the file as multipart/form-data in a field named "file".',
+    data: { issues: [{ path: 'file', message: 'Choose a file.' }] },
+  })
   if (file.data.length > maxBytes) {
     throw createError({ statusCode: 413, message: `The ${what} is too large (limit ${Math.round(maxBytes / 1024)} KiB).` })
   }
-  if (file.data.length === 0) throw createError({ statusCode: 400, message: `The ${what} is empty.`, data: { issues: [{ path: 'file', message: 'The file is empty.' }] } })
+  if (file.data.length === 0) throw createError({
+    statusCode: 400,
+    message: `The ${what} is empty.`,
+    data: { issues: [{ path: 'file', message: 'The file is empty.' }] },
+  })
   return { filename: file.filename || 'file', data: new Uint8Array(file.data) }
 }

@@ -28,7 +28,14 @@ export function startExercise(row: ScenarioRow, input: { title: string; descript
     tx.insert(schema.memberships).values({ exerciseId: exercise.id, userId: user.id, role: 'facilitator' }).run()
     const files = tx.select().from(schema.scenarioAttachments).where(eq(schema.scenarioAttachments.scenarioId, row.id)).all()
     for (const f of files) {
-      tx.insert(schema.exerciseAttachments).values({ exerciseId: exercise.id, path: f.path, name: f.name, contentType: f.contentType, size: f.size, sha256: f.sha256 }).run()
+      tx.insert(schema.exerciseAttachments).values({
+        exerciseId: exercise.id,
+        path: f.path,
+        name: f.name,
+        contentType: f.contentType,
+        size: f.size,
+        sha256: f.sha256,
+      }).run()
     }
     audit(user.id, 'exercise.start', exercise.id, { scenarioId: row.id, scenarioRevision: row.revision })
     return exercise
@@ -40,7 +47,10 @@ export function checkTeam(exercise: Exercise, role: ExerciseRole, teamKey: strin
   if (role !== 'player') return null
   const teams = exercise.scenario?.teams.map(t => t.key) ?? []
   if (!teamKey || !teams.includes(teamKey)) {
-    throw invalidFields([{ path: 'teamKey', message: `unknown team "${teamKey ?? ''}" (teams: ${teams.join(', ') || 'none'})` }], 'Choose one of the exercise\'s teams.')
+    throw invalidFields(
+      [{ path: 'teamKey', message: `unknown team "${teamKey ?? ''}" (teams: ${teams.join(', ') || 'none'})` }],
+      'Choose one of the exercise\'s teams.',
+    )
   }
   return teamKey
 }

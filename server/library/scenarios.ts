@@ -24,7 +24,13 @@ export function summarise(row: ScenarioRow) {
   return {
     id: row.id, key: row.key, title: row.title, summary: d.summary, revision: row.revision, origin: row.origin,
     updatedAt: row.updatedAt, createdAt: row.createdAt,
-    counts: { teams: d.teams.length, solutions: d.solutions.length, sites: d.sites.length, injects: d.injects.length, criteria: d.criteria.length },
+    counts: {
+      teams: d.teams.length,
+      solutions: d.solutions.length,
+      sites: d.sites.length,
+      injects: d.injects.length,
+      criteria: d.criteria.length,
+    },
     scenarioStart: d.clock.scenarioStart, impactTime: d.clock.impactTime, plannedWallMinutes: d.clock.plannedWallMinutes,
     finalImpactProbability: last?.solution.impactProbability ?? null,
   }
@@ -56,13 +62,22 @@ export function blankScenario(title: string, key: string): Scenario {
   const doc = {
     format: 'brinkwater-scenario/1', key, title,
     summary: 'Describe the situation the players face, who they are and what the drill is for.',
-    objectives: [{ key: 'shared-picture', title: 'Keep one shared picture of the threat', description: 'Turn each orbit solution into figures planners can use and share them across the teams.', capabilities: ['Situational Assessment'] }],
+    objectives: [{
+      key: 'shared-picture',
+      title: 'Keep one shared picture of the threat',
+      description: 'Turn each orbit solution into figures planners can use and share them across the teams.',
+      capabilities: ['Situational Assessment'],
+    }],
     teams: [
       { key: 'science', name: 'Science team', colour: '#2f6f9f' },
       { key: 'civil', name: 'Civil protection', colour: '#8a5a12' },
       { key: 'comms', name: 'Public information', colour: '#6b4a9b' },
     ],
-    clock: { scenarioStart: start.toISOString().replace('.000Z', 'Z'), impactTime: impact.toISOString().replace('.000Z', 'Z'), plannedWallMinutes: 240 },
+    clock: {
+      scenarioStart: start.toISOString().replace('.000Z', 'Z'),
+      impactTime: impact.toISOString().replace('.000Z', 'Z'),
+      plannedWallMinutes: 240,
+    },
     phases: [
       { key: 'detection', title: 'Detection' }, { key: 'follow-up', title: 'Follow-up' },
       { key: 'decision', title: 'Decision to act' }, { key: 'warning', title: 'Warning and evacuation' },
@@ -76,13 +91,23 @@ export function blankScenario(title: string, key: string): Scenario {
 }
 
 export function insertScenario(doc: Scenario, origin: ScenarioRow['origin'], by: string | null): ScenarioRow {
-  return useDB().insert(schema.scenarios).values({ key: doc.key, title: doc.title, document: doc, origin, createdBy: by, updatedBy: by }).returning().get()
+  return useDB().insert(schema.scenarios).values({
+    key: doc.key,
+    title: doc.title,
+    document: doc,
+    origin,
+    createdBy: by,
+    updatedBy: by,
+  }).returning().get()
 }
 
 /** Saves an edited document; the caller must name the revision it loaded (409 when it moved on). */
 export function saveScenario(row: ScenarioRow, value: unknown, revision: number, user: User): ScenarioRow {
   if (revision !== row.revision) {
-    throw conflict('Someone saved this scenario after you opened it. Reload to see their changes, then edit again.', { revision: row.revision })
+    throw conflict(
+      'Someone saved this scenario after you opened it. Reload to see their changes, then edit again.',
+      { revision: row.revision },
+    )
   }
   const checked = validateScenario(value)
   if (!checked.ok) scenarioInvalid(checked.errors)
@@ -102,7 +127,10 @@ export function importScenario(text: string, onConflict: 'refuse' | 'copy' | 're
   const doc = parsed.scenario
   const existing = useDB().select().from(schema.scenarios).where(eq(schema.scenarios.key, doc.key)).get()
   if (existing && onConflict === 'refuse') {
-    throw conflict(`The library already has a scenario with the key "${doc.key}". Import it as a copy, or replace the existing one.`, { issues: [{ path: 'key', message: 'already in the library' }], existingId: existing.id })
+    throw conflict(
+      `The library already has a scenario with the key "${doc.key}". Import it as a copy, or replace the existing one.`,
+      { issues: [{ path: 'key', message: 'already in the library' }], existingId: existing.id },
+    )
   }
   if (existing && onConflict === 'replace') {
     const row = useDB().update(schema.scenarios)
@@ -128,7 +156,14 @@ export function duplicateScenario(row: ScenarioRow, user: User): ScenarioRow {
     }).returning().get()
     const files = tx.select().from(schema.scenarioAttachments).where(eq(schema.scenarioAttachments.scenarioId, row.id)).all()
     for (const f of files) {
-      tx.insert(schema.scenarioAttachments).values({ scenarioId: copy.id, path: f.path, name: f.name, contentType: f.contentType, size: f.size, sha256: f.sha256 }).run()
+      tx.insert(schema.scenarioAttachments).values({
+        scenarioId: copy.id,
+        path: f.path,
+        name: f.name,
+        contentType: f.contentType,
+        size: f.size,
+        sha256: f.sha256,
+      }).run()
     }
     return copy
   })

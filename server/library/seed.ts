@@ -3,7 +3,14 @@ import type { ExerciseRole } from '#shared/utils/roles'
 import { startExercise } from './exercises'
 import { scenariosDir, seedScenarios } from './scenarios'
 
-export const DEMO_ACCOUNTS: Array<{ email: string; name: string; systemRole: 'admin' | 'member'; role?: ExerciseRole; teamKey?: string; canAuthor?: boolean }> = [
+export const DEMO_ACCOUNTS: Array<{
+  email: string
+  name: string
+  systemRole: 'admin' | 'member'
+  role?: ExerciseRole
+  teamKey?: string
+  canAuthor?: boolean
+}> = [
   { email: 'admin@brinkwater.test', name: 'Avery Holm (admin)', systemRole: 'admin' },
   { email: 'facilitator@brinkwater.test', name: 'Mira Castell', systemRole: 'member', role: 'facilitator', canAuthor: true },
   { email: 'science@brinkwater.test', name: 'Tomas Reyl', systemRole: 'member', role: 'player', teamKey: 'science' },
@@ -24,7 +31,13 @@ export async function seedDemo(): Promise<void> {
   const ids = new Map<string, string>()
   for (const a of DEMO_ACCOUNTS) {
     const found = db.select().from(schema.users).where(eq(schema.users.email, a.email)).get()
-    const row = found ?? db.insert(schema.users).values({ email: a.email, name: a.name, systemRole: a.systemRole, passwordHash: hash, canAuthor: a.canAuthor ?? false }).returning().get()
+    const row = found ?? db.insert(schema.users).values({
+      email: a.email,
+      name: a.name,
+      systemRole: a.systemRole,
+      passwordHash: hash,
+      canAuthor: a.canAuthor ?? false,
+    }).returning().get()
     ids.set(a.email, row.id)
   }
   await seedScenarios()

@@ -26,7 +26,7 @@ export function assessmentAt(db: DB | Tx, exerciseId: string, seq: number): Asse
     const row = db.select({ payload: schema.exerciseEvents.payload }).from(schema.exerciseEvents)
       .where(and(eq(schema.exerciseEvents.exerciseId, exerciseId), eq(schema.exerciseEvents.seq, seq))).get()
     if (!row) throw new Error(`no event ${seq} in exercise ${exerciseId}`)
-    a = (row.payload as unknown as SolutionPublishedData).assessment
+    a = (row.payload as SolutionPublishedData).assessment
     rememberAssessment(key, a)
   }
   return a

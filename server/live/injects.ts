@@ -3,16 +3,15 @@ import { and, eq } from 'drizzle-orm'
 import { hasHazardFields, renderBody } from '#shared/live/headline'
 import { phaseAt } from '#shared/live/schedule'
 import { DRILL, teamsAudience } from '#shared/live/visibility'
-import type { InjectData } from '#shared/live/types'
+import type { InjectData, InjectDefinition } from '#shared/live/types'
 import { BUILT_IN_INJECT_KINDS } from '#shared/scenario/constants'
 import { validateHazardFields } from '#shared/scenario/fields'
-import type { Inject } from '#shared/scenario/schema'
 import { assessmentAt, type Published, publishedSolutions } from './assessments'
 import { findIdempotent, liveWrite, type LiveWriter } from './record'
 import type { LiveExercise } from './types'
 
 /** An inject as the live services use it: a scenario inject, or an ad-hoc message's definition. */
-export type InjectDef = Pick<Inject, 'key' | 'at' | 'kind' | 'teams' | 'title' | 'body'> & Partial<Pick<Inject, 'solution' | 'decision' | 'expectedActions' | 'contingency' | 'attachments'>> & { phase: string | null; adhoc?: boolean }
+export type InjectDef = InjectDefinition
 
 type InjectRow = typeof schema.exerciseInjects.$inferSelect
 
@@ -24,7 +23,7 @@ export function injectRows(db: DB | Tx, exerciseId: string) {
 
 /** An inject of the exercise by key: the scenario's, or an ad-hoc message's stored definition. */
 export function injectDef(exercise: LiveExercise, key: string, row?: InjectRow | null): InjectDef | null {
-  if (row?.definition) return row.definition as unknown as InjectDef
+  if (row?.definition) return row.definition
   return exercise.scenario.injects.find(i => i.key === key) ?? null
 }
 
@@ -73,9 +72,17 @@ export function releaseInject(exerciseId: string, key: string, opts: { actorId?:
       .where(and(eq(schema.exerciseInjects.exerciseId, exerciseId), eq(schema.exerciseInjects.injectKey, key))).get()
     if (row?.status === 'released') throw conflict('This inject was already released.', { seq: row.releasedSeq })
     const data = injectData(w, def, { manual: opts.manual, wasHeld: row?.status === 'held' })
-    const event = w.append({ type: 'inject.released', audience: teamsAudience(def.teams, w.exercise.scenario.teams.map(t => t.key)), actorId: opts.actorId, data })
+    const event = w.append({
+      type: 'inject.released',
+      audience: teamsAudience(def.teams, w.exercise.scenario.teams.map(t => t.key)),
+      actorId: opts.actorId,
+      data,
+    })
     const values = { status: 'released' as const, releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey, revision: 0 }
-    if (row) w.tx.update(schema.exerciseInjects).set(values).where(and(eq(schema.exerciseInjects.id, row.id), eq(schema.exerciseInjects.status, 'held'))).run()
+    if (row) w.tx.update(schema.exerciseInjects).set(values).where(and(
+      eq(schema.exerciseInjects.id, row.id),
+      eq(schema.exerciseInjects.status, 'held'),
+    )).run()
     else w.tx.insert(schema.exerciseInjects).values({ exerciseId, injectKey: key, ...values }).run()
     return event
   })
@@ -105,13 +112,20 @@ function checkMessage(exercise: LiveExercise, input: { teams: string[]; body: st
   const issues = [
     ...input.teams.flatMap((t, i) => (teams.has(t) ? [] : [{ path: `teams[${i}]`, message: `unknown team "${t}"` }])),
     ...(kinds.has(input.kind) ? [] : [{ path: 'kind', message: `unknown kind "${input.kind}"` }]),
-    ...validateHazardFields(input.body, scenario.sites.map(s => s.id)).map(i => ({ path: 'body', message: `${i.line}:${i.column} ${i.message}` })),
+    ...validateHazardFields(input.body, scenario.sites.map(s => s.id)).map(i => ({
+      path: 'body',
+      message: `${i.line}:${i.column} ${i.message}`,
+    })),
   ]
   if (issues.length) throw invalidFields(issues)
 }
 
 /** Sends an ad-hoc message from the facilitator, recorded and shown like an inject (`message.sent`). */
-export function sendMessage(exerciseId: string, input: { teams: string[]; title: string; body: string; kind: string; idempotencyKey: string }, actorId: string) {
+export function sendMessage(
+  exerciseId: string,
+  input: { teams: string[]; title: string; body: string; kind: string; idempotencyKey: string },
+  actorId: string,
+) {
   return liveWrite(exerciseId, (w) => {
     const again = findIdempotent(w.tx, exerciseId, actorId, input.idempotencyKey, 'message.sent')
     if (again) return { event: again, created: false }
@@ -119,12 +133,21 @@ export function sendMessage(exerciseId: string, input: { teams: string[]; title:
     checkMessage(w.exercise, input)
     const def: InjectDef = {
       key: `msg-${randomBytes(5).toString('hex')}`, adhoc: true, at: new Date(w.scenarioNow).toISOString(),
-      phase: phaseAt(w.exercise.scenario, w.scenarioNow), kind: input.kind, teams: [...new Set(input.teams)], title: input.title, body: input.body,
+      phase: phaseAt(
+        w.exercise.scenario,
+        w.scenarioNow,
+      ), kind: input.kind, teams: [...new Set(input.teams)], title: input.title, body: input.body,
     }
     const data = injectData(w, def, { manual: true, wasHeld: false })
-    const event = w.append({ type: 'message.sent', audience: teamsAudience(def.teams, w.exercise.scenario.teams.map(t => t.key)), actorId, idempotencyKey: input.idempotencyKey, data })
+    const event = w.append({
+      type: 'message.sent',
+      audience: teamsAudience(def.teams, w.exercise.scenario.teams.map(t => t.key)),
+      actorId,
+      idempotencyKey: input.idempotencyKey,
+      data,
+    })
     w.tx.insert(schema.exerciseInjects).values({
-      exerciseId, injectKey: def.key, status: 'released', definition: def as unknown as Record<string, unknown>,
+      exerciseId, injectKey: def.key, status: 'released', definition: def,
       releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey,
     }).run()
     return { event, created: true }

@@ -45,7 +45,12 @@ export function acquireLease(name: string, ttlMs: number, holder = LEASE_HOLDER,
   const take = (extra?: ReturnType<typeof eq>) => db.insert(t).values({ name, holder, expiresAt: now + ttlMs, acquiredAt: now })
     .onConflictDoUpdate({
       target: t.name,
-      set: { holder, expiresAt: now + ttlMs, acquiredAt: sql`case when ${t.holder} = ${holder} then ${t.acquiredAt} else ${now} end`, updatedAt: new Date(now) },
+      set: {
+        holder,
+        expiresAt: now + ttlMs,
+        acquiredAt: sql`case when ${t.holder} = ${holder} then ${t.acquiredAt} else ${now} end`,
+        updatedAt: new Date(now),
+      },
       setWhere: or(eq(t.holder, holder), lte(t.expiresAt, now), extra),
     }).returning().get()
   const row = take()

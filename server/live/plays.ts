@@ -10,7 +10,12 @@ const by = (user: User) => ({ id: user.id, name: user.name })
  * A player's response to an inject released to their team (a decision choice and/or text). The same
  * idempotency key returns the first response without a second event.
  */
-export function submitResponse(exerciseId: string, user: User, membership: Membership, input: { injectKey: string; choice?: string | null; text: string; idempotencyKey: string }) {
+export function submitResponse(
+  exerciseId: string,
+  user: User,
+  membership: Membership,
+  input: { injectKey: string; choice?: string | null; text: string; idempotencyKey: string },
+) {
   return liveWrite(exerciseId, (w) => {
     const again = findIdempotent(w.tx, exerciseId, user.id, input.idempotencyKey, 'response.submitted')
     if (again) return { event: again, created: false }
@@ -20,7 +25,10 @@ export function submitResponse(exerciseId: string, user: User, membership: Membe
       .where(and(eq(schema.exerciseInjects.exerciseId, exerciseId), eq(schema.exerciseInjects.injectKey, input.injectKey))).get()
     const def = row?.status === 'released' ? injectDef(w.exercise, input.injectKey, row) : null
     if (!def || !def.teams.includes(teamKey)) throw notFound('No such inject in your team\'s traffic.')
-    if (input.choice && !def.decision?.choices?.includes(input.choice)) throw badField('choice', def.decision?.choices ? 'not one of the choices' : 'this inject offers no choices')
+    if (input.choice && !def.decision?.choices?.includes(input.choice)) throw badField(
+      'choice',
+      def.decision?.choices ? 'not one of the choices' : 'this inject offers no choices',
+    )
     const late = def.decision ? w.scenarioNow > Date.parse(def.decision.deadline) : false
     const event = w.append({
       type: 'response.submitted', audience: `teams:${teamKey}`, actorId: user.id, idempotencyKey: input.idempotencyKey,
@@ -31,7 +39,11 @@ export function submitResponse(exerciseId: string, user: User, membership: Membe
 }
 
 /** An evaluator's P/S/M/U rating of one critical task of a criterion, with a note. */
-export function recordScore(exerciseId: string, user: User, input: { criterionKey: string; taskKey: string; rating: 'P' | 'S' | 'M' | 'U'; note: string; idempotencyKey: string }) {
+export function recordScore(
+  exerciseId: string,
+  user: User,
+  input: { criterionKey: string; taskKey: string; rating: 'P' | 'S' | 'M' | 'U'; note: string; idempotencyKey: string },
+) {
   return liveWrite(exerciseId, (w) => {
     const again = findIdempotent(w.tx, exerciseId, user.id, input.idempotencyKey, 'score.recorded')
     if (again) return { event: again, created: false }
@@ -40,19 +52,37 @@ export function recordScore(exerciseId: string, user: User, input: { criterionKe
     if (!criterion.tasks.some(t => t.key === input.taskKey)) throw badField('taskKey', 'no such task in this criterion')
     const event = w.append({
       type: 'score.recorded', audience: 'evaluators', actorId: user.id, idempotencyKey: input.idempotencyKey,
-      data: { id: randomUUID(), criterionKey: input.criterionKey, taskKey: input.taskKey, rating: input.rating, note: input.note, by: by(user) },
+      data: {
+        id: randomUUID(),
+        criterionKey: input.criterionKey,
+        taskKey: input.taskKey,
+        rating: input.rating,
+        note: input.note,
+        by: by(user),
+      },
     })
     return { event, created: true }
   })
 }
 
 /** A timestamped observation by an evaluator, optionally about an inject and a team. */
-export function recordObservation(exerciseId: string, user: User, input: { text: string; injectKey?: string | null; teamKey?: string | null; idempotencyKey: string }) {
+export function recordObservation(
+  exerciseId: string,
+  user: User,
+  input: { text: string; injectKey?: string | null; teamKey?: string | null; idempotencyKey: string },
+) {
   return liveWrite(exerciseId, (w) => {
     const again = findIdempotent(w.tx, exerciseId, user.id, input.idempotencyKey, 'observation.recorded')
     if (again) return { event: again, created: false }
-    if (input.teamKey && !w.exercise.scenario.teams.some(t => t.key === input.teamKey)) throw badField('teamKey', 'no such team in this exercise')
-    if (input.injectKey && !injectDef(w.exercise, input.injectKey, injectRows(w.tx, exerciseId).get(input.injectKey))) throw badField('injectKey', 'no such inject in this exercise')
+    if (input.teamKey && !w.exercise.scenario.teams.some(t => t.key === input.teamKey)) throw badField(
+      'teamKey',
+      'no such team in this exercise',
+    )
+    if (input.injectKey && !injectDef(
+      w.exercise,
+      input.injectKey,
+      injectRows(w.tx, exerciseId).get(input.injectKey),
+    )) throw badField('injectKey', 'no such inject in this exercise')
     const event = w.append({
       type: 'observation.recorded', audience: 'evaluators', actorId: user.id, idempotencyKey: input.idempotencyKey,
       data: { id: randomUUID(), text: input.text, injectKey: input.injectKey ?? null, teamKey: input.teamKey ?? null, by: by(user) },

@@ -28,7 +28,7 @@ export interface LiveWriter {
   /** Scenario time of the write, ms (held within the scenario window). */
   scenarioNow: number
   /** Appends an event with the next sequence number; it is emitted once the transaction commits. */
-  append: <T extends LiveEventType>(e: NewEvent<T>) => StoredEvent
+  append: <T extends LiveEventType>(e: NewEvent<T>) => StoredEvent<T>
 }
 
 /** An exercise with its frozen scenario; 404 when missing, 409 when it has no scenario. */
@@ -45,16 +45,20 @@ export function audienceWhere(view: LiveView): SQL | undefined {
   switch (view.kind) {
     case 'control': return undefined
     case 'evaluator': return ne(audience, 'control')
-    case 'player': return or(eq(audience, 'all'), and(like(audience, 'teams:%'), sql`(',' || substr(${audience}, 7) || ',') like ${`%,${view.teamKey},%`}`))
+    case 'player': return or(
+      eq(audience, 'all'),
+      and(like(audience, 'teams:%'), sql`(',' || substr(${audience}, 7) || ',') like ${`%,${view.teamKey},%`}`),
+    )
     case 'wall': return and(eq(audience, 'all'), inArray(type, wallTypes()))
   }
 }
 
 function toStored(row: typeof schema.exerciseEvents.$inferSelect): StoredEvent {
+  // A row pairs its type and payload as written by `append`; the column types cannot say so.
   return {
-    seq: row.seq, type: row.type as LiveEventType, wallTime: row.wallTime, scenarioTime: row.scenarioTime,
-    actorId: row.actorId, audience: row.audience as Audience, data: row.payload as unknown as StoredEvent['data'],
-  }
+    seq: row.seq, type: row.type, wallTime: row.wallTime, scenarioTime: row.scenarioTime,
+    actorId: row.actorId, audience: row.audience, data: row.payload,
+  } as StoredEvent
 }
 
 function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, scenarioTime: number): StoredEvent {
@@ -62,7 +66,7 @@ function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, 
     .from(schema.exerciseEvents).where(eq(schema.exerciseEvents.exerciseId, exerciseId)).get()!
   const row = tx.insert(schema.exerciseEvents).values({
     exerciseId, seq: next, type: e.type, wallTime, scenarioTime, actorId: e.actorId ?? null, audience: e.audience,
-    payload: e.data as unknown as Record<string, unknown>, idempotencyKey: e.idempotencyKey ?? null,
+    payload: e.data, idempotencyKey: e.idempotencyKey ?? null,
   }).returning().get()
   return toStored(row)
 }
@@ -74,7 +78,8 @@ function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, 
 export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T {
   const appended: StoredEvent[] = []
   let exercise: LiveExercise | undefined
-  // IMMEDIATE takes the write lock first: with several processes on one file, a deferred read-then-write fails with SQLITE_BUSY instead of waiting.
+  // IMMEDIATE takes the write lock first: with several processes on one file, a deferred read-then-write fails with SQLITE_BUSY instead of
+  // waiting.
   const result = useDB().transaction((tx) => {
     exercise = liveExercise(tx, exerciseId)
     const clock = readClock(tx, exercise)
@@ -84,7 +89,7 @@ export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T 
     const append = <E extends LiveEventType>(e: NewEvent<E>) => {
       const stored = insertEvent(tx, exerciseId, e as NewEvent, now, e.scenarioTime ?? scenarioNow)
       appended.push(stored)
-      return stored
+      return stored as StoredEvent<E>
     }
     return work({ tx, exercise, clock, bounds, now, scenarioNow, append })
   }, { behavior: 'immediate' })
@@ -93,13 +98,18 @@ export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T 
 }
 
 /** The event a caller already wrote with this idempotency key (null if none); 409 when it was another kind of write. */
-export function findIdempotent(tx: Tx, exerciseId: string, actorId: string, key: string, type: LiveEventType): StoredEvent | null {
-  const row = tx.select().from(schema.exerciseEvents).where(and(
-    eq(schema.exerciseEvents.exerciseId, exerciseId), eq(schema.exerciseEvents.actorId, actorId), eq(schema.exerciseEvents.idempotencyKey, key),
-  )).get()
+export function findIdempotent<T extends LiveEventType>(
+  tx: Tx, exerciseId: string, actorId: string, key: string, type: T,
+): StoredEvent<T> | null {
+  const e = schema.exerciseEvents
+  const row = tx.select().from(e)
+    .where(and(eq(e.exerciseId, exerciseId), eq(e.actorId, actorId), eq(e.idempotencyKey, key))).get()
   if (!row) return null
-  if (row.type !== type) throw conflict('This idempotency key was already used for another write.', { issues: [{ path: 'idempotencyKey', message: 'already used' }] })
-  return toStored(row)
+  if (row.type !== type) throw conflict(
+    'This idempotency key was already used for another write.',
+    { issues: [{ path: 'idempotencyKey', message: 'already used' }] },
+  )
+  return toStored(row) as StoredEvent<T>
 }
 
 /** Stored events of an exercise after `since` that a view may read, in sequence order. */

@@ -15,7 +15,12 @@ function pauseAtEnd(exerciseId: string): void {
     const stopped = w.exercise.status === 'running' ? stopAtEnd(w.clock, w.now, w.bounds) : null
     if (!stopped) return
     writeClock(w.tx, exerciseId, stopped, 'paused')
-    w.append({ type: 'clock.changed', audience: 'all', scenarioTime: w.bounds.end, data: { action: 'auto-pause', clock: clockDto(stopped, 'paused', w.bounds) } })
+    w.append({
+      type: 'clock.changed',
+      audience: 'all',
+      scenarioTime: w.bounds.end,
+      data: { action: 'auto-pause', clock: clockDto(stopped, 'paused', w.bounds) },
+    })
   })
 }
 
@@ -78,7 +83,10 @@ export async function runDuePaced(exerciseId: string, proceed: () => boolean = (
  * One pass of the scheduler over the exercises in the given states; a failing exercise does not stop
  * the others. `proceed` is asked before each release (the lease still ours?); false ends the pass.
  */
-export async function schedulerTick(statuses: Array<'running' | 'paused'> = ['running'], proceed: () => boolean = () => true): Promise<void> {
+export async function schedulerTick(
+  statuses: Array<'running' | 'paused'> = ['running'],
+  proceed: () => boolean = () => true,
+): Promise<void> {
   const ids = useDB().select({ id: schema.exercises.id }).from(schema.exercises).where(inArray(schema.exercises.status, statuses)).all()
   for (const { id } of ids) {
     if (!proceed()) return

@@ -14,7 +14,7 @@ function schedule(exercise: LiveExercise, feed: Feed, t: number) {
   for (const r of feed.responses) answered.set(r.injectKey, (answered.get(r.injectKey) ?? new Set()).add(r.teamKey))
   const defs: InjectDef[] = [
     ...exercise.scenario.injects,
-    ...[...rows.values()].filter(r => r.definition).map(r => r.definition as unknown as InjectDef),
+    ...[...rows.values()].filter(r => r.definition).map(r => r.definition!),
   ]
   return defs.map((def) => {
     const row = rows.get(def.key)

@@ -19,17 +19,32 @@ export function solutionSeed(exerciseId: string, solutionKey: string): number {
 function reviseReleased(w: LiveWriter, published: readonly Published[]) {
   const allTeams = w.exercise.scenario.teams.map(t => t.key)
   const rows = w.tx.select().from(schema.exerciseInjects)
-    .where(and(eq(schema.exerciseInjects.exerciseId, w.exercise.id), eq(schema.exerciseInjects.status, 'released'))).orderBy(asc(schema.exerciseInjects.releasedSeq)).all()
+    .where(and(
+      eq(schema.exerciseInjects.exerciseId, w.exercise.id),
+      eq(schema.exerciseInjects.status, 'released'),
+    )).orderBy(asc(schema.exerciseInjects.releasedSeq)).all()
   for (const row of rows) {
     const def = injectDef(w.exercise, row.injectKey, row)
     if (!def || !hasHazardFields(def.body)) continue
     const next = renderInject(w.tx, w.exercise.id, def, published)
     if (next.solutionKey === row.solutionKey || next.body === row.body) continue
     const revision = row.revision + 1
-    w.tx.update(schema.exerciseInjects).set({ body: next.body, solutionKey: next.solutionKey, revision }).where(eq(schema.exerciseInjects.id, row.id)).run()
+    w.tx.update(schema.exerciseInjects).set({
+      body: next.body,
+      solutionKey: next.solutionKey,
+      revision,
+    }).where(eq(schema.exerciseInjects.id, row.id)).run()
     w.append({
       type: 'inject.revised', audience: teamsAudience(def.teams, allTeams),
-      data: { key: row.injectKey, teams: def.teams, revision, body: next.body, solutionKey: next.solutionKey, previousSolutionKey: row.solutionKey, drill: DRILL },
+      data: {
+        key: row.injectKey,
+        teams: def.teams,
+        revision,
+        body: next.body,
+        solutionKey: next.solutionKey,
+        previousSolutionKey: row.solutionKey,
+        drill: DRILL,
+      },
     })
   }
 }
@@ -52,7 +67,18 @@ export function publishSolution(exerciseId: string, key: string, opts: { actorId
     if (isPublished(w.tx)) throw conflict('This solution was already published.')
     const event = w.append({
       type: 'solution.published', audience: 'all', actorId: opts.actorId,
-      data: { key, label: entry.label, releaseAt: entry.releaseAt, manual: opts.manual, samples: PUBLISH_SAMPLES, seed, solution: entry.solution, assessment, headline: assessmentHeadline(assessment), drill: DRILL },
+      data: {
+        key,
+        label: entry.label,
+        releaseAt: entry.releaseAt,
+        manual: opts.manual,
+        samples: PUBLISH_SAMPLES,
+        seed,
+        solution: entry.solution,
+        assessment,
+        headline: assessmentHeadline(assessment),
+        drill: DRILL,
+      },
     })
     w.tx.insert(schema.exerciseSolutions).values({ exerciseId, solutionKey: key, seq: event.seq }).run()
     rememberAssessment(`${exerciseId}:${event.seq}`, assessment)

@@ -11,14 +11,24 @@ import { latestSeq, liveExercise, visibleEvents } from './record'
 /** Creates a share link for the wall view; the token is returned once and only its hash is kept. */
 export function createWallToken(exerciseId: string, label: string, userId: string) {
   const token = randomBytes(32).toString('base64url')
-  const row = useDB().insert(schema.wallTokens).values({ exerciseId, tokenHash: hashToken(token), label, createdBy: userId }).returning().get()
+  const row = useDB().insert(schema.wallTokens).values({
+    exerciseId,
+    tokenHash: hashToken(token),
+    label,
+    createdBy: userId,
+  }).returning().get()
   audit(userId, 'exercise.wall.create', exerciseId, { tokenId: row.id })
   return { id: row.id, label: row.label, createdAt: row.createdAt, token, path: `/wall/${token}` }
 }
 
 /** An exercise's wall links (without tokens), newest first. */
 export function listWallTokens(exerciseId: string) {
-  return useDB().select({ id: schema.wallTokens.id, label: schema.wallTokens.label, createdAt: schema.wallTokens.createdAt, revokedAt: schema.wallTokens.revokedAt })
+  return useDB().select({
+    id: schema.wallTokens.id,
+    label: schema.wallTokens.label,
+    createdAt: schema.wallTokens.createdAt,
+    revokedAt: schema.wallTokens.revokedAt,
+  })
     .from(schema.wallTokens).where(eq(schema.wallTokens.exerciseId, exerciseId)).orderBy(desc(schema.wallTokens.createdAt)).all()
 }
 
@@ -55,7 +65,17 @@ export function wallSnapshot(exerciseId: string) {
     clock, scenarioNow: new Date(scenarioNow).toISOString(), serverTime: Date.now(),
     phase: phaseAt(exercise.scenario, scenarioNow), phases: exercise.scenario.phases,
     currentSolution: solution,
-    injects: feed.injects.slice(-WALL_INJECTS).reverse().map(({ key, title, kind, phase, teams, at, body, revision, releasedAt }) => ({ key, title, kind, phase, teams, at, body, revision, releasedAt })),
+    injects: feed.injects.slice(-WALL_INJECTS).reverse().map(({
+      key,
+      title,
+      kind,
+      phase,
+      teams,
+      at,
+      body,
+      revision,
+      releasedAt,
+    }) => ({ key, title, kind, phase, teams, at, body, revision, releasedAt })),
     lastSeq: latestSeq(exerciseId),
     drill: DRILL,
   }

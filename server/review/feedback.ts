@@ -11,7 +11,12 @@ import { exerciseMembers } from './review'
 /** The members an action names, all of them members of the exercise (400 with the path of any other). */
 export function membersByIds(exerciseId: string, userIds: readonly string[]) {
   const members = exerciseMembers(exerciseId)
-  const issues = userIds.flatMap((id, i) => (members.some(m => m.userId === id) ? [] : [{ path: `userIds[${i}]`, message: 'not a member of this exercise' }]))
+  const issues = userIds.flatMap((id, i) => (members.some(m => m.userId === id)
+    ? []
+    : [{
+        path: `userIds[${i}]`,
+        message: 'not a member of this exercise',
+      }]))
   if (issues.length) throw invalidFields(issues)
   return members.filter(m => userIds.includes(m.userId))
 }
@@ -24,7 +29,14 @@ export function myFeedback(exerciseId: string, userId: string) {
   return {
     exercise: { id: exercise.id, title: exercise.title, status: exercise.status },
     questions: FEEDBACK_QUESTIONS, scale: FEEDBACK_SCALE,
-    response: row ? { ratings: row.ratings, wentWell: row.wentWell, toImprove: row.toImprove, updatedAt: row.updatedAt.toISOString() } : null,
+    response: row
+      ? {
+          ratings: row.ratings,
+          wentWell: row.wentWell,
+          toImprove: row.toImprove,
+          updatedAt: row.updatedAt.toISOString(),
+        }
+      : null,
   }
 }
 
@@ -32,7 +44,10 @@ export function myFeedback(exerciseId: string, userId: string) {
 export function submitFeedback(exerciseId: string, userId: string, input: FeedbackInput) {
   const values = { ratings: input.ratings, wentWell: input.wentWell, toImprove: input.toImprove }
   const row = useDB().insert(schema.feedbackResponses).values({ exerciseId, userId, ...values })
-    .onConflictDoUpdate({ target: [schema.feedbackResponses.exerciseId, schema.feedbackResponses.userId], set: { ...values, updatedAt: new Date() } })
+    .onConflictDoUpdate({
+      target: [schema.feedbackResponses.exerciseId, schema.feedbackResponses.userId],
+      set: { ...values, updatedAt: new Date() },
+    })
     .returning().get()
   return { ratings: row.ratings, wentWell: row.wentWell, toImprove: row.toImprove, updatedAt: row.updatedAt.toISOString() }
 }
@@ -42,7 +57,13 @@ export function reviewFeedback(exerciseId: string) {
   const db = useDB()
   const rows = db.select({ r: schema.feedbackResponses, role: schema.memberships.role, teamKey: schema.memberships.teamKey })
     .from(schema.feedbackResponses)
-    .leftJoin(schema.memberships, and(eq(schema.memberships.exerciseId, schema.feedbackResponses.exerciseId), eq(schema.memberships.userId, schema.feedbackResponses.userId)))
+    .leftJoin(
+      schema.memberships,
+      and(
+        eq(schema.memberships.exerciseId, schema.feedbackResponses.exerciseId),
+        eq(schema.memberships.userId, schema.feedbackResponses.userId),
+      ),
+    )
     .where(eq(schema.feedbackResponses.exerciseId, exerciseId)).orderBy(schema.feedbackResponses.updatedAt).all()
   const asked = db.select({ userId: schema.feedbackRequests.userId, at: schema.feedbackRequests.createdAt }).from(schema.feedbackRequests)
     .where(eq(schema.feedbackRequests.exerciseId, exerciseId)).all()
@@ -54,7 +75,14 @@ export function reviewFeedback(exerciseId: string) {
   for (const a of asked) lastAsked.set(a.userId, a.at.toISOString())
   return {
     summary: feedbackSummary(entries, lastAsked.size),
-    members: exerciseMembers(exerciseId).map(m => ({ userId: m.userId, name: m.name, role: m.role, teamKey: m.teamKey, askedAt: lastAsked.get(m.userId) ?? null, answered: answered.has(m.userId) })),
+    members: exerciseMembers(exerciseId).map(m => ({
+      userId: m.userId,
+      name: m.name,
+      role: m.role,
+      teamKey: m.teamKey,
+      askedAt: lastAsked.get(m.userId) ?? null,
+      answered: answered.has(m.userId),
+    })),
   }
 }
 

@@ -11,7 +11,15 @@ export function hotwashNotes(exerciseId: string): HotwashNote[] {
     .where(eq(schema.hotwashNotes.exerciseId, exerciseId)).all()
   return HOTWASH_SECTIONS.map((s) => {
     const r = rows.find(x => x.section === s.key)
-    return { key: s.key, title: s.title, hint: s.hint, body: r?.body ?? '', revision: r?.revision ?? 0, updatedAt: r?.updatedAt.toISOString() ?? null, updatedBy: r?.updatedBy ?? null }
+    return {
+      key: s.key,
+      title: s.title,
+      hint: s.hint,
+      body: r?.body ?? '',
+      revision: r?.revision ?? 0,
+      updatedAt: r?.updatedAt.toISOString() ?? null,
+      updatedBy: r?.updatedBy ?? null,
+    }
   })
 }
 
@@ -22,13 +30,29 @@ export function hotwashNotes(exerciseId: string): HotwashNote[] {
 export function saveHotwash(exerciseId: string, section: HotwashSection, input: { body: string; revision: number }, actorId: string) {
   const db = useDB()
   const saved = db.transaction((tx) => {
-    const row = tx.select().from(schema.hotwashNotes).where(and(eq(schema.hotwashNotes.exerciseId, exerciseId), eq(schema.hotwashNotes.section, section))).get()
+    const row = tx.select().from(schema.hotwashNotes).where(and(
+      eq(schema.hotwashNotes.exerciseId, exerciseId),
+      eq(schema.hotwashNotes.section, section),
+    )).get()
     const current = row?.revision ?? 0
     if (current !== input.revision) {
-      throw conflict('Someone saved this section after you opened it. Their text is shown; merge your changes and save again.', { body: row?.body ?? '', revision: current })
+      throw conflict(
+        'Someone saved this section after you opened it. Their text is shown; merge your changes and save again.',
+        { body: row?.body ?? '', revision: current },
+      )
     }
-    if (row) return tx.update(schema.hotwashNotes).set({ body: input.body, revision: current + 1, updatedBy: actorId }).where(eq(schema.hotwashNotes.id, row.id)).returning().get()
-    return tx.insert(schema.hotwashNotes).values({ exerciseId, section, body: input.body, revision: 1, updatedBy: actorId }).returning().get()
+    if (row) return tx.update(schema.hotwashNotes).set({
+      body: input.body,
+      revision: current + 1,
+      updatedBy: actorId,
+    }).where(eq(schema.hotwashNotes.id, row.id)).returning().get()
+    return tx.insert(schema.hotwashNotes).values({
+      exerciseId,
+      section,
+      body: input.body,
+      revision: 1,
+      updatedBy: actorId,
+    }).returning().get()
   })
   audit(actorId, 'review.hotwash.save', exerciseId, { section, revision: saved.revision })
   return hotwashNotes(exerciseId).find(s => s.key === section)!

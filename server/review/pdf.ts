@@ -1,7 +1,13 @@
 import pdfmake from 'pdfmake'
 import type { TDocumentDefinitions } from 'pdfmake/interfaces'
 
-const FONT_FILES = ['plex-sans-400.woff', 'plex-sans-400-italic.woff', 'plex-sans-600.woff', 'plex-sans-600-italic.woff', 'plex-mono-400.woff']
+const FONT_FILES = [
+  'plex-sans-400.woff',
+  'plex-sans-400-italic.woff',
+  'plex-sans-600.woff',
+  'plex-sans-600-italic.woff',
+  'plex-mono-400.woff',
+]
 let ready: Promise<void> | undefined
 // @types/pdfmake does not describe 0.3's virtual file system.
 const vfs = (pdfmake as unknown as { virtualfs: { writeFileSync(name: string, data: Buffer): void } }).virtualfs
@@ -16,8 +22,18 @@ function loadFonts(): Promise<void> {
       vfs.writeFileSync(name, Buffer.from(raw as Uint8Array))
     }
     pdfmake.setFonts({
-      Plex: { normal: 'plex-sans-400.woff', bold: 'plex-sans-600.woff', italics: 'plex-sans-400-italic.woff', bolditalics: 'plex-sans-600-italic.woff' },
-      PlexMono: { normal: 'plex-mono-400.woff', bold: 'plex-mono-400.woff', italics: 'plex-mono-400.woff', bolditalics: 'plex-mono-400.woff' },
+      Plex: {
+        normal: 'plex-sans-400.woff',
+        bold: 'plex-sans-600.woff',
+        italics: 'plex-sans-400-italic.woff',
+        bolditalics: 'plex-sans-600-italic.woff',
+      },
+      PlexMono: {
+        normal: 'plex-mono-400.woff',
+        bold: 'plex-mono-400.woff',
+        italics: 'plex-mono-400.woff',
+        bolditalics: 'plex-mono-400.woff',
+      },
     })
     // Documents never fetch anything: no URLs, no local files beyond the fonts above.
     pdfmake.setUrlAccessPolicy(() => false)

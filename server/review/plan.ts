@@ -17,17 +17,30 @@ const invalid = (issues: FieldIssue[]) => invalidFields(issues)
 function checkObjective(scenario: Scenario, input: { objectiveKey: string; capability: string }) {
   const caps = objectiveCapabilities(scenario, input.objectiveKey)
   if (!caps) throw invalid([{ path: 'objectiveKey', message: 'not an objective of this exercise' }])
-  if (!caps.includes(input.capability)) throw invalid([{ path: 'capability', message: `not a capability of this objective (${caps.join('; ')})` }])
+  if (!caps.includes(input.capability)) throw invalid([{
+    path: 'capability',
+    message: `not a capability of this objective (${caps.join('; ')})`,
+  }])
 }
 
 function findingOut(r: FindingRow): Finding {
-  return { id: r.id, kind: r.kind, objectiveKey: r.objectiveKey, capability: r.capability, title: r.title, detail: r.detail, createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString() }
+  return {
+    id: r.id,
+    kind: r.kind,
+    objectiveKey: r.objectiveKey,
+    capability: r.capability,
+    title: r.title,
+    detail: r.detail,
+    createdAt: r.createdAt.toISOString(),
+    updatedAt: r.updatedAt.toISOString(),
+  }
 }
 
 function itemOut(r: ItemRow): ImprovementItem {
   return {
     id: r.id, findingId: r.findingId, objectiveKey: r.objectiveKey, capability: r.capability, action: r.action, element: r.element,
-    owner: r.owner, startDate: r.startDate, dueDate: r.dueDate, status: r.status, createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
+    owner: r.owner, startDate: r.startDate, dueDate: r.dueDate, status: r.status,
+    createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
   }
 }
 
@@ -45,7 +58,12 @@ function findingRow(exerciseId: string, findingId: string): FindingRow {
 
 export function createFinding(exerciseId: string, input: FindingInput, actorId: string) {
   checkObjective(liveExercise(useDB(), exerciseId).scenario, input)
-  const row = useDB().insert(schema.exerciseFindings).values({ exerciseId, ...input, createdBy: actorId, updatedBy: actorId }).returning().get()
+  const row = useDB().insert(schema.exerciseFindings).values({
+    exerciseId,
+    ...input,
+    createdBy: actorId,
+    updatedBy: actorId,
+  }).returning().get()
   audit(actorId, 'review.finding.create', exerciseId, { findingId: row.id, kind: row.kind })
   return findingOut(row)
 }
@@ -57,7 +75,10 @@ export function updateFinding(exerciseId: string, findingId: string, patch: Part
   const row = useDB().update(schema.exerciseFindings).set({ ...patch, updatedBy: actorId })
     .where(eq(schema.exerciseFindings.id, findingId)).returning().get()
   // A strength answers no corrective action: items that pointed at it keep their text but lose the link.
-  if (row.kind === 'strength') useDB().update(schema.improvementItems).set({ findingId: null }).where(eq(schema.improvementItems.findingId, findingId)).run()
+  if (row.kind === 'strength') useDB().update(schema.improvementItems).set({ findingId: null }).where(eq(
+    schema.improvementItems.findingId,
+    findingId,
+  )).run()
   audit(actorId, 'review.finding.update', exerciseId, { findingId, fields: Object.keys(patch) })
   return findingOut(row)
 }
@@ -87,12 +108,21 @@ function checkItem(exerciseId: string, input: ImprovementInput) {
   const f = useDB().select().from(schema.exerciseFindings)
     .where(and(eq(schema.exerciseFindings.exerciseId, exerciseId), eq(schema.exerciseFindings.id, input.findingId))).get()
   if (!f) throw invalid([{ path: 'findingId', message: 'not a finding of this exercise' }])
-  if (f.kind !== 'improvement') throw invalid([{ path: 'findingId', message: 'a corrective action answers an area for improvement, not a strength' }])
+  if (f.kind !== 'improvement') throw invalid([{
+    path: 'findingId',
+    message: 'a corrective action answers an area for improvement, not a strength',
+  }])
 }
 
 export function createImprovement(exerciseId: string, input: ImprovementInput, actorId: string) {
   checkItem(exerciseId, input)
-  const row = useDB().insert(schema.improvementItems).values({ exerciseId, ...input, findingId: input.findingId ?? null, createdBy: actorId, updatedBy: actorId }).returning().get()
+  const row = useDB().insert(schema.improvementItems).values({
+    exerciseId,
+    ...input,
+    findingId: input.findingId ?? null,
+    createdBy: actorId,
+    updatedBy: actorId,
+  }).returning().get()
   audit(actorId, 'review.improvement.create', exerciseId, { itemId: row.id })
   return itemOut(row)
 }

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { decisionSummary } from '#shared/review/decisions'
 import { eventFacets } from '#shared/review/facets'
 import { scoringSummary } from '#shared/review/scoring'
-import type { SolutionPublishedData, StoredEvent } from '#shared/live/types'
+import type { StoredEvent } from '#shared/live/types'
 import { hasCapability } from '#shared/utils/permissions'
 import { clockNow, liveExercise, storedEvents } from '../live'
 import { exerciseTimeline } from './exports'
@@ -18,7 +18,8 @@ export function reviewRecord(exerciseId: string) {
 /** Members of an exercise with name, e-mail, role and team, by name. */
 export function exerciseMembers(exerciseId: string) {
   return useDB().select({
-    userId: schema.users.id, name: schema.users.name, email: schema.users.email, role: schema.memberships.role, teamKey: schema.memberships.teamKey,
+    userId: schema.users.id, name: schema.users.name, email: schema.users.email,
+    role: schema.memberships.role, teamKey: schema.memberships.teamKey,
   }).from(schema.memberships).innerJoin(schema.users, eq(schema.users.id, schema.memberships.userId))
     .where(eq(schema.memberships.exerciseId, exerciseId)).orderBy(schema.users.name).all()
 }
@@ -32,18 +33,34 @@ export function drillDates(events: readonly StoredEvent[]) {
   return { startedAt: iso(start), endedAt: iso(end), lastEventAt: iso(events.at(-1)) }
 }
 
-/** The review desk's frame: the exercise, the parts of its scenario the desk needs, members, the timeline with filter facets, and what the caller may do. */
+/** The review desk's frame: the exercise, the parts of its scenario the desk needs, members, the timeline with filter facets, and what the
+ * caller may do. */
 export function reviewOverview(exerciseId: string, access: ExerciseAccess) {
   const { exercise, rows, events } = exerciseTimeline(exerciseId)
   const { scenario } = liveExercise(useDB(), exerciseId)
   const facets = new Map(events.map(e => [e.seq, eventFacets(e, scenario)]))
   const role = access.membership?.role ?? null
   return {
-    exercise: { id: exercise.id, title: exercise.title, description: exercise.description, status: exercise.status, createdAt: exercise.createdAt.toISOString(), ...drillDates(events) },
+    exercise: {
+      id: exercise.id,
+      title: exercise.title,
+      description: exercise.description,
+      status: exercise.status,
+      createdAt: exercise.createdAt.toISOString(),
+      ...drillDates(events),
+    },
     scenario: {
       key: scenario.key, title: scenario.title, summary: scenario.summary, clock: scenario.clock,
       objectives: scenario.objectives, teams: scenario.teams, phases: scenario.phases, criteria: scenario.criteria,
-      injects: scenario.injects.map(i => ({ key: i.key, title: i.title, at: i.at, phase: i.phase, teams: i.teams, kind: i.kind, decision: !!i.decision })),
+      injects: scenario.injects.map(i => ({
+        key: i.key,
+        title: i.title,
+        at: i.at,
+        phase: i.phase,
+        teams: i.teams,
+        kind: i.kind,
+        decision: !!i.decision,
+      })),
     },
     members: exerciseMembers(exerciseId).map(m => ({ ...m, email: role === 'evaluator' ? undefined : m.email })),
     timeline: rows.map(r => ({ ...r, teamKeys: facets.get(r.seq)?.teamKeys ?? [], phaseKey: facets.get(r.seq)?.phaseKey ?? null })),
@@ -73,18 +90,33 @@ export function replayRecord(exerciseId: string) {
   const { exercise, events } = reviewRecord(exerciseId)
   const slim = events.map((e) => {
     if (e.type !== 'solution.published') return e
-    const { assessment: _a, ...data } = e.data as SolutionPublishedData
+    const { assessment: _a, ...data } = e.data
     return { ...e, data }
   })
-  return { events: slim, sites: exercise.scenario.sites, teams: exercise.scenario.teams, phases: exercise.scenario.phases, injects: exercise.scenario.injects.map(i => ({ key: i.key, phase: i.phase, at: i.at })) }
+  return {
+    events: slim,
+    sites: exercise.scenario.sites,
+    teams: exercise.scenario.teams,
+    phases: exercise.scenario.phases,
+    injects: exercise.scenario.injects.map(i => ({ key: i.key, phase: i.phase, at: i.at })),
+  }
 }
 
 /** A published solution of the exercise with its stored assessment; 404 when it was not published. */
 export function publishedSolution(exerciseId: string, key: string) {
-  const row = useDB().select().from(schema.exerciseSolutions).where(eq(schema.exerciseSolutions.exerciseId, exerciseId)).all().find(s => s.solutionKey === key)
+  const row = useDB().select().from(schema.exerciseSolutions)
+    .where(eq(schema.exerciseSolutions.exerciseId, exerciseId)).all().find(s => s.solutionKey === key)
   if (!row) throw notFound('This solution was not published in this exercise.')
   const event = storedEvents(exerciseId, { kind: 'control' }, row.seq - 1, 1)[0]
-  const d = event?.data as SolutionPublishedData | undefined
-  if (!d || event?.type !== 'solution.published') throw notFound('This solution was not published in this exercise.')
-  return { key: d.key, label: d.label, releaseAt: d.releaseAt, seq: event.seq, solution: d.solution, assessment: d.assessment, headline: d.headline }
+  if (event?.type !== 'solution.published') throw notFound('This solution was not published in this exercise.')
+  const d = event.data
+  return {
+    key: d.key,
+    label: d.label,
+    releaseAt: d.releaseAt,
+    seq: event.seq,
+    solution: d.solution,
+    assessment: d.assessment,
+    headline: d.headline,
+  }
 }

@@ -33,7 +33,10 @@ export async function requireAdmin(event: H3Event): Promise<User> {
 /** Admins and scenario authors: the scenario library and starting exercises. Others → 403. */
 export async function requireAuthor(event: H3Event): Promise<User> {
   const user = await requireUser(event)
-  if (user.systemRole !== 'admin' && !user.canAuthor) throw createError({ statusCode: 403, message: 'Only scenario authors and administrators use the scenario library.' })
+  if (user.systemRole !== 'admin' && !user.canAuthor) throw createError({
+    statusCode: 403,
+    message: 'Only scenario authors and administrators use the scenario library.',
+  })
   return user
 }
 
@@ -83,7 +86,13 @@ export async function requireExerciseAccess<S extends z.ZodType<{ id: string }> 
 
 /** What the session keeps of a user (ids only; roles are always read from the database). */
 export function sessionUser(user: User) {
-  return { id: user.id, email: user.email, name: user.name, systemRole: user.systemRole, canAuthor: user.systemRole === 'admin' || user.canAuthor }
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    systemRole: user.systemRole,
+    canAuthor: user.systemRole === 'admin' || user.canAuthor,
+  }
 }
 
 /**

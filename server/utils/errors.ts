@@ -5,7 +5,13 @@ import type { FieldIssue } from '#shared/utils/issues'
 export type DomainErrorKind = 'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'ended'
 
 /** The one place where domain errors become HTTP statuses (an ended drill refuses writes as a conflict). */
-export const HTTP_STATUS_OF: Record<DomainErrorKind, number> = { 'invalid': 400, 'forbidden': 403, 'not-found': 404, 'conflict': 409, 'ended': 409 }
+export const HTTP_STATUS_OF: Record<DomainErrorKind, number> = {
+  'invalid': 400,
+  'forbidden': 403,
+  'not-found': 404,
+  'conflict': 409,
+  'ended': 409,
+}
 
 /**
  * A service's refusal. It is an H3Error, so a route that lets it through answers with the mapped

@@ -13,7 +13,12 @@ export function issueAccountToken(userId: string, kind: TokenKind, now = Date.no
   db.transaction((tx) => {
     tx.update(schema.accountTokens).set({ usedAt: new Date(now) })
       .where(and(eq(schema.accountTokens.userId, userId), eq(schema.accountTokens.kind, kind), isNull(schema.accountTokens.usedAt))).run()
-    tx.insert(schema.accountTokens).values({ userId, kind, tokenHash: hashToken(token), expiresAt: new Date(now + LIFETIME_MS[kind]) }).run()
+    tx.insert(schema.accountTokens).values({
+      userId,
+      kind,
+      tokenHash: hashToken(token),
+      expiresAt: new Date(now + LIFETIME_MS[kind]),
+    }).run()
   })
   return token
 }

@@ -5,7 +5,11 @@ import { fieldIssues } from '#shared/utils/issues'
 function parseOr400<S extends z.ZodType>(schema: S, value: unknown, what: string): z.output<S> {
   const result = schema.safeParse(value)
   if (!result.success) {
-    throw createError({ statusCode: 400, message: `Invalid ${what}: check the listed fields.`, data: { issues: fieldIssues(result.error) } })
+    throw createError({
+      statusCode: 400,
+      message: `Invalid ${what}: check the listed fields.`,
+      data: { issues: fieldIssues(result.error) },
+    })
   }
   return result.data
 }

@@ -12,7 +12,10 @@ export function logSpace(fromKm: number, toKm: number, n: number): number[] {
 
 /** Peak overpressure against ground range for the median case (Collins et al. 2005), [km, kPa] pairs. */
 export function overpressureCurve(basis: MedianBlastCase, fromKm = 1, toKm = 300, n = 80): Array<[number, number]> {
-  return logSpace(fromKm, toKm, n).map(km => [km, overpressurePa({ energyMt: basis.energyMt, groundRangeM: km * 1000, burstAltitudeM: basis.burstAltitudeM }) / 1000])
+  return logSpace(fromKm, toKm, n).map(km => [
+    km,
+    overpressurePa({ energyMt: basis.energyMt, groundRangeM: km * 1000, burstAltitudeM: basis.burstAltitudeM }) / 1000,
+  ])
 }
 
 /**

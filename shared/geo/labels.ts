@@ -13,8 +13,14 @@ export const textWidth = (text: string, fontPx: number) => text.length * fontPx 
  * Places each label (in the given order: put the most important first) right, left, above or below its
  * marker, whichever fits first; a label that fits nowhere is left out (null) rather than overprinted.
  */
-export function placeLabels(items: readonly LabelItem[], o: { width: number; height: number; fontPx: number; markerPx: number; blocked?: Box[] }): Map<string, PlacedLabel | null> {
-  const taken: Box[] = [...(o.blocked ?? []), ...items.map(i => ({ x0: i.x - o.markerPx, y0: i.y - o.markerPx, x1: i.x + o.markerPx, y1: i.y + o.markerPx }))]
+export function placeLabels(
+  items: readonly LabelItem[],
+  o: { width: number; height: number; fontPx: number; markerPx: number; blocked?: Box[] },
+): Map<string, PlacedLabel | null> {
+  const taken: Box[] = [
+    ...(o.blocked ?? []),
+    ...items.map(i => ({ x0: i.x - o.markerPx, y0: i.y - o.markerPx, x1: i.x + o.markerPx, y1: i.y + o.markerPx })),
+  ]
   const out = new Map<string, PlacedLabel | null>()
   const h = o.fontPx * 1.2, gap = o.markerPx + 3
   for (const it of items) {

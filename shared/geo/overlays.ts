@@ -40,7 +40,10 @@ export interface BlastRing {
  * Ground radii at which the peak overpressure of the median case falls to each threshold, from the
  * engine's law (Collins et al. 2005, `overpressureRadiusM`). Thresholds never reached are left out.
  */
-export function blastRings(a: BlastInputs, keys: readonly ThresholdKey[] = DEFAULT_RING_KEYS): { basis: MedianBlastCase; rings: BlastRing[] } {
+export function blastRings(
+  a: BlastInputs,
+  keys: readonly ThresholdKey[] = DEFAULT_RING_KEYS,
+): { basis: MedianBlastCase; rings: BlastRing[] } {
   const basis = medianBlastCase(a)
   const rings: BlastRing[] = []
   for (const key of keys) {

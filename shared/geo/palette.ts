@@ -47,7 +47,15 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
 }
 
 /** Dash pattern of each blast ring, outermost (least damage) finest. */
-export const RING_DASH: Record<string, string> = { windows: '2 4', houseDamage: '6 4', houseCollapse: '8 5', multistoreyCracked: '10 4', multistoreyCollapse: '', bridgeCollapse: '', steelFrameCollapse: '' }
+export const RING_DASH: Record<string, string> = {
+  windows: '2 4',
+  houseDamage: '6 4',
+  houseCollapse: '8 5',
+  multistoreyCracked: '10 4',
+  multistoreyCollapse: '',
+  bridgeCollapse: '',
+  steelFrameCollapse: '',
+}
 
 /**
  * The marker of a site: triangle for run-up of 3 m or more, diamond for 1–3 m, circle below 1 m,
@@ -77,6 +85,26 @@ export interface ChartPalette {
 }
 
 export const CHART_PALETTES: Record<'light' | 'dark', ChartPalette> = {
-  light: { text: '#233041', muted: '#526c84', axis: '#9fb1c1', split: '#e3e9ee', primary: '#0b73a0', secondary: '#d25d08', danger: '#c22f45', band: 'rgba(19, 145, 195, 0.2)', background: '#ffffff' },
-  dark: { text: '#e3e9ee', muted: '#9fb1c1', axis: '#526c84', split: '#233041', primary: '#36afdf', secondary: '#fd9a2e', danger: '#f2707a', band: 'rgba(54, 175, 223, 0.25)', background: '#17202c' },
+  light: {
+    text: '#233041',
+    muted: '#526c84',
+    axis: '#9fb1c1',
+    split: '#e3e9ee',
+    primary: '#0b73a0',
+    secondary: '#d25d08',
+    danger: '#c22f45',
+    band: 'rgba(19, 145, 195, 0.2)',
+    background: '#ffffff',
+  },
+  dark: {
+    text: '#e3e9ee',
+    muted: '#9fb1c1',
+    axis: '#526c84',
+    split: '#233041',
+    primary: '#36afdf',
+    secondary: '#fd9a2e',
+    danger: '#f2707a',
+    band: 'rgba(54, 175, 223, 0.25)',
+    background: '#17202c',
+  },
 }

@@ -62,7 +62,10 @@ function viewBox(p: GeoProjection, w: number, h: number): LonLatBox | null {
   return [[Math.min(a[0], b[0]) - 1, Math.min(a[1], b[1]) - 1], [Math.max(a[0], b[0]) + 1, Math.max(a[1], b[1]) + 1]]
 }
 
-const fc = (geometries: Geometry[]): FeatureCollection => ({ type: 'FeatureCollection', features: geometries.map(geometry => ({ type: 'Feature', properties: {}, geometry })) })
+const fc = (geometries: Geometry[]): FeatureCollection => ({
+  type: 'FeatureCollection',
+  features: geometries.map(geometry => ({ type: 'Feature', properties: {}, geometry })),
+})
 
 export function buildScene(input: SceneInput): MapScene {
   const { width, height, view } = input
@@ -70,14 +73,21 @@ export function buildScene(input: SceneInput): MapScene {
   const sites = input.sites ?? []
   const rings = input.rings ?? []
   const ringKm = rings.reduce((m, r) => Math.max(m, r.radiusKm), 0)
-  const projection = projectionFor(view, { width, height, corridors: input.corridors, sites: sites.map(s => [s.lon, s.lat] as LonLat), ringKm, padding: input.padding })
+  const projection = projectionFor(
+    view,
+    { width, height, corridors: input.corridors, sites: sites.map(s => [s.lon, s.lat] as LonLat), ringKm, padding: input.padding },
+  )
   const path = geoPath(projection).digits(1)
-  const inFrame = (xy: [number, number] | null): xy is [number, number] => !!xy && xy[0] >= 0 && xy[0] <= width && xy[1] >= 0 && xy[1] <= height
+  const inFrame = (xy: [number, number] | null): xy is [number, number] =>
+    !!xy && xy[0] >= 0 && xy[0] <= width && xy[1] >= 0 && xy[1] <= height
 
   let land = '', borders = ''
   if (input.atlas) {
     const box = view === 'regional' ? viewBox(projection, width, height) : null
-    const keep = <G>(parts: Array<{ geometry: G; bounds: LonLatBox }>) => parts.filter(p => !box || boxesOverlap(p.bounds, box)).map(p => p.geometry)
+    const keep = <G>(parts: Array<{
+      geometry: G
+      bounds: LonLatBox
+    }>) => parts.filter(p => !box || boxesOverlap(p.bounds, box)).map(p => p.geometry)
     land = path(fc(keep(input.atlas.land))) ?? ''
     borders = path(fc(keep(input.atlas.borders))) ?? ''
   }
@@ -116,7 +126,21 @@ export function buildScene(input: SceneInput): MapScene {
   }
   const nom = current ? projection(current.nominal) : null
 
-  return { width, height, view, graticule, land, borders, corridors, rings: sceneRings, points, culledPoints, sites: placed, nominal: inFrame(nom) ? nom : null, projection }
+  return {
+    width,
+    height,
+    view,
+    graticule,
+    land,
+    borders,
+    corridors,
+    rings: sceneRings,
+    points,
+    culledPoints,
+    sites: placed,
+    nominal: inFrame(nom) ? nom : null,
+    projection,
+  }
 }
 
 const r1 = (x: number) => Math.round(x * 10) / 10

@@ -58,35 +58,80 @@ export function renderMapSvg(o: RenderMapOptions): string {
   }
   for (const r of scene.rings) {
     push(`<path class="ring" data-ring="${r.key}" d="${r.d}" fill="none" stroke="${c.ring}" stroke-width="1.6" stroke-dasharray="${RING_DASH[r.key] ?? ''}"/>`)
-    if (r.labelAt) push(text(ringLabel(r), r.labelAt[0], r.labelAt[1] + (r.labelSide === 'top' ? -8 : 8), 'middle', 11, c.ring, c.halo, 'ring-label'))
+    if (r.labelAt) push(text(
+      ringLabel(r),
+      r.labelAt[0],
+      r.labelAt[1] + (r.labelSide === 'top' ? -8 : 8),
+      'middle',
+      11,
+      c.ring,
+      c.halo,
+      'ring-label',
+    ))
   }
   if (scene.nominal) {
     const [x, y] = scene.nominal
     push(`<path class="nominal" d="M${x - 6} ${y}h12M${x} ${y - 6}v12" stroke="${c.text}" stroke-width="2"/>`)
   }
   const order = [...scene.sites].sort((a, b) => b.population - a.population)
-  const labels = placeLabels(order.map(s => ({ id: s.id, x: s.x, y: s.y, text: s.name })), { width: w, height: h, fontPx: 12, markerPx: 6, blocked: [{ x0: 0, y0: 0, x1: w, y1: MARK_H + 4 }] })
+  const labels = placeLabels(
+    order.map(s => ({ id: s.id, x: s.x, y: s.y, text: s.name })),
+    { width: w, height: h, fontPx: 12, markerPx: 6, blocked: [{ x0: 0, y0: 0, x1: w, y1: MARK_H + 4 }] },
+  )
   for (const s of scene.sites) {
     push(`<path class="site" data-site="${escapeXml(s.id)}" d="${siteGlyph(s.tone, s.x, s.y, 5)}" fill="${c.site[s.tone]}" stroke="${c.siteEdge}" stroke-width="1.2"/>`)
     const at = labels.get(s.id)
     if (at) push(text(s.name, at.x, at.y, at.anchor, 12, c.text, c.halo, 'site-label'))
   }
-  if (o.legend !== false) push(legend(o, scene.points.map(p => p.kind), scene.corridors.length > 1, scene.rings.map(r => r.key), [...new Set(scene.sites.map(s => s.tone))], c, h))
+  if (o.legend !== false) push(legend(
+    o,
+    scene.points.map(p => p.kind),
+    scene.corridors.length > 1,
+    scene.rings.map(r => r.key),
+    [...new Set(scene.sites.map(s => s.tone))],
+    c,
+    h,
+  ))
   push(`<rect width="${w}" height="${MARK_H}" fill="${c.marking}"/>`)
   push(text(o.marking ?? DRILL_MARKING, w / 2, MARK_H / 2, 'middle', 14, c.markingText, null, 'marking', 'bold', '0.3em'))
   push('</svg>')
   return out.join('\n')
 }
 
-function text(s: string, x: number, y: number, anchor: string, size: number, fill: string, halo: string | null, cls = '', weight = 'normal', spacing = '0'): string {
+function text(
+  s: string,
+  x: number,
+  y: number,
+  anchor: string,
+  size: number,
+  fill: string,
+  halo: string | null,
+  cls = '',
+  weight = 'normal',
+  spacing = '0',
+): string {
   const h = halo ? ` stroke="${halo}" stroke-width="3" stroke-linejoin="round" paint-order="stroke"` : ''
   return `<text class="${cls}" x="${Math.round(x * 10) / 10}" y="${Math.round(y * 10) / 10}" text-anchor="${anchor}" dominant-baseline="central" font-size="${size}" font-weight="${weight}" letter-spacing="${spacing}" fill="${fill}"${h}>${escapeXml(s)}</text>`
 }
 
-function legend(o: RenderMapOptions, kinds: PointKind[], earlier: boolean, rings: string[], tones: RunUpClass[], c: typeof MAP_PALETTES.light, h: number): string {
+function legend(
+  o: RenderMapOptions,
+  kinds: PointKind[],
+  earlier: boolean,
+  rings: string[],
+  tones: RunUpClass[],
+  c: typeof MAP_PALETTES.light,
+  h: number,
+): string {
   const rows: Array<{ glyph: string; label: string }> = []
-  rows.push({ glyph: `<rect x="0" y="-5" width="18" height="10" fill="${c.corridor}" fill-opacity="0.22" stroke="${c.corridorEdge}"/>`, label: 'Risk corridor, current solution' })
-  if (earlier) rows.push({ glyph: `<rect x="0" y="-5" width="18" height="10" fill="none" stroke="${c.earlier}" stroke-dasharray="5 4"/>`, label: 'Risk corridor, earlier solutions' })
+  rows.push({
+    glyph: `<rect x="0" y="-5" width="18" height="10" fill="${c.corridor}" fill-opacity="0.22" stroke="${c.corridorEdge}"/>`,
+    label: 'Risk corridor, current solution',
+  })
+  if (earlier) rows.push({
+    glyph: `<rect x="0" y="-5" width="18" height="10" fill="none" stroke="${c.earlier}" stroke-dasharray="5 4"/>`,
+    label: 'Risk corridor, earlier solutions',
+  })
   for (const k of ['sea', 'land', 'air'] as const) {
     if (!kinds.includes(k)) continue
     const g = k === 'sea'
@@ -96,9 +141,15 @@ function legend(o: RenderMapOptions, kinds: PointKind[], earlier: boolean, rings
   }
   for (const key of rings) {
     const r = o.rings?.find(x => x.key === key)
-    rows.push({ glyph: `<path d="M0 0h18" stroke="${c.ring}" stroke-width="1.6" stroke-dasharray="${RING_DASH[key] ?? ''}"/>`, label: r ? `${r.label}: ${kPaText(r.thresholdKPa)} within ${kmText(r.radiusKm)}` : key })
+    rows.push({
+      glyph: `<path d="M0 0h18" stroke="${c.ring}" stroke-width="1.6" stroke-dasharray="${RING_DASH[key] ?? ''}"/>`,
+      label: r ? `${r.label}: ${kPaText(r.thresholdKPa)} within ${kmText(r.radiusKm)}` : key,
+    })
   }
-  for (const t of tones) rows.push({ glyph: `<path d="${siteGlyph(t, 9, 0, 5)}" fill="${c.site[t]}" stroke="${c.siteEdge}"/>`, label: toneLabel(t) })
+  for (const t of tones) rows.push({
+    glyph: `<path d="${siteGlyph(t, 9, 0, 5)}" fill="${c.site[t]}" stroke="${c.siteEdge}"/>`,
+    label: toneLabel(t),
+  })
   const note = rings.length ? ringBasisText(o.ringBasis ?? null) : ''
   const lineH = 16, width = 380
   const noteLines = wrap(note, 66)

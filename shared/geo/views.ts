@@ -28,7 +28,14 @@ export interface ViewFrame {
   padding?: number | Padding
 }
 
-const pad = (p: ViewFrame['padding']): Padding => typeof p === 'object' ? p : { top: p ?? 24, right: p ?? 24, bottom: p ?? 24, left: p ?? 24 }
+const pad = (p: ViewFrame['padding']): Padding => typeof p === 'object'
+  ? p
+  : {
+      top: p ?? 24,
+      right: p ?? 24,
+      bottom: p ?? 24,
+      left: p ?? 24,
+    }
 
 function extent(f: ViewFrame): [[number, number], [number, number]] {
   const p = pad(f.padding)
@@ -36,7 +43,11 @@ function extent(f: ViewFrame): [[number, number], [number, number]] {
 }
 
 const collection = (features: Array<Feature<Geometry>>): FeatureCollection => ({ type: 'FeatureCollection', features })
-const points = (pts: readonly LonLat[]): Feature<Geometry> => ({ type: 'Feature', properties: {}, geometry: { type: 'MultiPoint', coordinates: pts.map(p => [p[0], p[1]]) } })
+const points = (pts: readonly LonLat[]): Feature<Geometry> => ({
+  type: 'Feature',
+  properties: {},
+  geometry: { type: 'MultiPoint', coordinates: pts.map(p => [p[0], p[1]]) },
+})
 
 /** The view a corridor calls for: regional once its spread fits within about 150 km of the nominal point. */
 export function defaultView(c: CorridorShape): MapView {

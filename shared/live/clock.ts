@@ -71,7 +71,11 @@ function rebase(state: ClockState, now: number): ClockState {
   return { ...state, wallAnchor: now, scenarioAnchor: scenarioTimeAt(state, now) }
 }
 
-const refuse = (message: string, code: 400 | 409 = 409, path?: string): ClockResult => ({ ok: false, code, message, ...(path ? { path } : {}) })
+const refuse = (
+  message: string,
+  code: 400 | 409 = 409,
+  path?: string,
+): ClockResult => ({ ok: false, code, message, ...(path ? { path } : {}) })
 
 const ALLOWED: Record<ClockActionName, readonly ExerciseStatus[]> = {
   start: ['planned'],
@@ -86,12 +90,23 @@ const ALLOWED: Record<ClockActionName, readonly ExerciseStatus[]> = {
  * Applies a facilitator's clock action at wall time `now`. The clock only moves forward, within
  * `bounds`; start needs a planned exercise, pause a running one, resume a paused one.
  */
-export function applyClockAction(state: ClockState, status: ExerciseStatus, action: ClockAction, now: number, bounds: ClockBounds): ClockResult {
+export function applyClockAction(
+  state: ClockState,
+  status: ExerciseStatus,
+  action: ClockAction,
+  now: number,
+  bounds: ClockBounds,
+): ClockResult {
   if (!ALLOWED[action.action].includes(status)) return refuse(`Cannot ${action.action} the clock of a ${status} exercise.`)
   const from = Math.min(scenarioTimeAt(state, now), bounds.end)
   switch (action.action) {
     case 'start':
-      return { ok: true, from, status: 'running', state: { wallAnchor: now, scenarioAnchor: bounds.start, factor: action.factor ?? state.factor, paused: false } }
+      return {
+        ok: true,
+        from,
+        status: 'running',
+        state: { wallAnchor: now, scenarioAnchor: bounds.start, factor: action.factor ?? state.factor, paused: false },
+      }
     case 'pause':
       return { ok: true, from, status: 'paused', state: { ...rebase(state, now), scenarioAnchor: from, paused: true } }
     case 'resume':

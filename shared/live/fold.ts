@@ -3,10 +3,7 @@
  * with their current body and revision history, responses, solutions, scores and observations.
  * The server builds its snapshots with it and the client store derives the same from its feed.
  */
-import type {
-  ClockChangedData, ClockDto, Headline, InjectData, InjectHeldData, InjectRevisedData, LiveEvent,
-  ObservationData, ResponseData, ScoreData, SolutionPublishedData, WallSolutionData,
-} from './types'
+import type { ClockDto, Headline, InjectData, InjectHeldData, LiveEvent, ObservationData, ResponseData, ScoreData, SolutionPublishedData, WallSolutionData } from './types'
 
 interface Stamp { seq: number; scenarioTime: string; wallTime: string }
 
@@ -40,7 +37,17 @@ export interface Feed {
 }
 
 export function emptyFeed(): Feed {
-  return { injects: [], solutions: [], currentSolution: null, clock: null, responses: [], scores: [], observations: [], held: [], lastSeq: 0 }
+  return {
+    injects: [],
+    solutions: [],
+    currentSolution: null,
+    clock: null,
+    responses: [],
+    scores: [],
+    observations: [],
+    held: [],
+    lastSeq: 0,
+  }
 }
 
 /** Folds events (in any order; duplicates by seq are ignored) into a feed. */
@@ -55,7 +62,7 @@ export function foldEvents(events: readonly LiveEvent[]): Feed {
     const stamp: Stamp = { seq: e.seq, scenarioTime: e.scenarioTime, wallTime: e.wallTime }
     switch (e.type) {
       case 'clock.changed':
-        feed.clock = (e.data as ClockChangedData).clock
+        feed.clock = e.data.clock
         break
       case 'solution.published': {
         const d = e.data as SolutionPublishedData | WallSolutionData
@@ -66,7 +73,7 @@ export function foldEvents(events: readonly LiveEvent[]): Feed {
       }
       case 'inject.released':
       case 'message.sent': {
-        const d = e.data as InjectData
+        const d = e.data
         const item: FeedInject = {
           ...d, releasedSeq: e.seq, releasedAt: e.scenarioTime, responses: [],
           revisions: [{ revision: d.revision, body: d.body, solutionKey: d.solutionKey, seq: e.seq, scenarioTime: e.scenarioTime }],
@@ -77,7 +84,7 @@ export function foldEvents(events: readonly LiveEvent[]): Feed {
         break
       }
       case 'inject.revised': {
-        const d = e.data as InjectRevisedData
+        const d = e.data
         const item = byKey.get(d.key)
         if (!item) break
         item.revisions.push({ revision: d.revision, body: d.body, solutionKey: d.solutionKey, seq: e.seq, scenarioTime: e.scenarioTime })
@@ -85,19 +92,19 @@ export function foldEvents(events: readonly LiveEvent[]): Feed {
         break
       }
       case 'inject.held':
-        feed.held.push({ ...(e.data as InjectHeldData), ...stamp })
+        feed.held.push({ ...e.data, ...stamp })
         break
       case 'response.submitted': {
-        const r = { ...(e.data as ResponseData), ...stamp }
+        const r = { ...e.data, ...stamp }
         feed.responses.push(r)
         byKey.get(r.injectKey)?.responses.push(r)
         break
       }
       case 'score.recorded':
-        feed.scores.push({ ...(e.data as ScoreData), ...stamp })
+        feed.scores.push({ ...e.data, ...stamp })
         break
       case 'observation.recorded':
-        feed.observations.push({ ...(e.data as ObservationData), ...stamp })
+        feed.observations.push({ ...e.data, ...stamp })
         break
     }
   }

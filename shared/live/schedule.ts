@@ -3,8 +3,16 @@ import type { Scenario } from '../scenario/schema'
 
 export interface DueItem { kind: 'solution' | 'inject'; key: string; at: number }
 
-/** What the scheduler must do at scenario time `t`: unpublished solutions and unreleased, unheld, non-contingency injects that fell due, in time order (a solution before an inject at the same time). */
-export function dueItems(scenario: Pick<Scenario, 'solutions' | 'injects'>, published: ReadonlySet<string>, injectStates: ReadonlyMap<string, unknown>, t: number): DueItem[] {
+/** What the scheduler must do at scenario time `t`: unpublished solutions and unreleased, unheld, non-contingency injects that fell due,
+ * in time order (a solution before an inject at the same time). */
+export function dueItems(
+  scenario: Pick<Scenario,
+  'solutions' | 'injects'>,
+  published: ReadonlySet<string>,
+  injectStates: ReadonlyMap<string,
+    unknown>,
+  t: number,
+): DueItem[] {
   const items: DueItem[] = []
   for (const s of scenario.solutions) {
     const at = Date.parse(s.releaseAt)

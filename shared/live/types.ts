@@ -1,7 +1,7 @@
 /** Types of the live exercise: the clock, the event record as clients receive it, and its payloads. */
 import type { Assessment, Percentiles } from '../hazard/types'
 import type { OrbitSolution } from '../hazard/schema'
-import type { Decision } from '../scenario/schema'
+import type { Decision, Inject } from '../scenario/schema'
 
 export type ExerciseStatus = 'planned' | 'running' | 'paused' | 'ended'
 
@@ -162,25 +162,29 @@ export interface EventDataMap {
 }
 export type LiveEventType = keyof EventDataMap
 
-/** One event as a reader receives it (socket message `event`, GET …/events). */
-export interface LiveEvent<T extends LiveEventType = LiveEventType> {
-  seq: number
-  type: T
-  wallTime: string
-  scenarioTime: string
-  data: EventDataMap[T] | WallSolutionData
-}
+/** What a reader receives as an event's data: the wall gets a slimmer solution publication. */
+export type ReaderDataMap = Omit<EventDataMap, 'solution.published'> & { 'solution.published': SolutionPublishedData | WallSolutionData }
 
-/** An event as stored: full payload and its audience. */
-export interface StoredEvent {
-  seq: number
-  type: LiveEventType
-  wallTime: number
-  scenarioTime: number
-  actorId: string | null
-  audience: Audience
-  data: EventDataMap[LiveEventType]
-}
+/**
+ * One event as a reader receives it (socket message `event`, GET …/events): a union discriminated
+ * by `type`, so that `e.type === 'inject.released'` narrows `e.data` to InjectData.
+ */
+export type LiveEvent<T extends LiveEventType = LiveEventType> = {
+  [K in T]: { seq: number; type: K; wallTime: string; scenarioTime: string; data: ReaderDataMap[K] }
+}[T]
+
+/** An event as stored: full payload and its audience; discriminated by `type` like LiveEvent. */
+export type StoredEvent<T extends LiveEventType = LiveEventType> = {
+  [K in T]: {
+    seq: number
+    type: K
+    wallTime: number
+    scenarioTime: number
+    actorId: string | null
+    audience: Audience
+    data: EventDataMap[K]
+  }
+}[T]
 
 /** Sent on the socket after the replay of missed events: who you are here and the clock now. */
 export interface LiveReady {
@@ -192,3 +196,8 @@ export interface LiveReady {
   lastSeq: number
   serverTime: number
 }
+
+/** An inject as the live services use it: a scenario inject, or an ad-hoc message's stored definition. */
+export type InjectDefinition = Pick<Inject, 'key' | 'at' | 'kind' | 'teams' | 'title' | 'body'>
+  & Partial<Pick<Inject, 'solution' | 'decision' | 'expectedActions' | 'contingency' | 'attachments'>>
+  & { phase: string | null; adhoc?: boolean }

@@ -7,7 +7,17 @@
  * scores or observations. The wall sees only public traffic: the clock, headline figures of each
  * solution, and injects sent to every team of the scenario (stored with audience `all`).
  */
-import type { Audience, DrillFlag, InjectData, LiveEvent, LiveEventType, LiveView, SolutionPublishedData, StoredEvent, WallSolutionData } from './types'
+import type {
+  Audience,
+  DrillFlag,
+  InjectData,
+  LiveEvent,
+  LiveEventType,
+  LiveView,
+  SolutionPublishedData,
+  StoredEvent,
+  WallSolutionData,
+} from './types'
 import { DRILL_CAUTION, DRILL_MARKING } from '../utils/drill'
 
 export const DRILL: DrillFlag = { marking: DRILL_MARKING, caution: DRILL_CAUTION }
@@ -22,7 +32,13 @@ export function audienceTeams(audience: Audience): string[] {
   return audience.startsWith('teams:') ? audience.slice(6).split(',') : []
 }
 
-const WALL_TYPES: ReadonlySet<LiveEventType> = new Set(['clock.changed', 'solution.published', 'inject.released', 'message.sent', 'inject.revised'])
+const WALL_TYPES: ReadonlySet<LiveEventType> = new Set([
+  'clock.changed',
+  'solution.published',
+  'inject.released',
+  'message.sent',
+  'inject.revised',
+])
 
 /** Whether a reader with this view may receive an event with this audience (and type, for the wall). */
 export function canSee(view: LiveView, audience: Audience, type?: LiveEventType): boolean {
@@ -48,7 +64,14 @@ function forWall(data: InjectData): InjectData {
 }
 
 function wallSolution(d: SolutionPublishedData): WallSolutionData {
-  return { key: d.key, label: d.label, headline: d.headline, corridor: d.solution.corridor, impactPoints: d.assessment.impactPoints, drill: d.drill }
+  return {
+    key: d.key,
+    label: d.label,
+    headline: d.headline,
+    corridor: d.solution.corridor,
+    impactPoints: d.assessment.impactPoints,
+    drill: d.drill,
+  }
 }
 
 /** What one reader receives of a stored event; null when it may not see it at all. */
@@ -57,14 +80,14 @@ export function sanitise(event: StoredEvent, view: LiveView): LiveEvent | null {
   let data: LiveEvent['data'] = event.data
   const restricted = view.kind === 'player' || view.kind === 'wall'
   if (restricted && (event.type === 'inject.released' || event.type === 'message.sent')) {
-    data = view.kind === 'wall' ? forWall(event.data as InjectData) : forPlayer(event.data as InjectData)
+    data = view.kind === 'wall' ? forWall(event.data) : forPlayer(event.data)
   }
-  if (view.kind === 'wall' && event.type === 'solution.published') data = wallSolution(event.data as SolutionPublishedData)
+  if (view.kind === 'wall' && event.type === 'solution.published') data = wallSolution(event.data)
   return {
     seq: event.seq, type: event.type, data,
     wallTime: new Date(event.wallTime).toISOString(),
     scenarioTime: new Date(event.scenarioTime).toISOString(),
-  }
+  } as LiveEvent
 }
 
 /** Socket.IO room names of an exercise. */

@@ -3,7 +3,7 @@
  * decision, and every team it went to, the time from release to the team's first response, set
  * against the decision deadline (scenario time) — then summarised per team and per phase.
  */
-import type { InjectData, ResponseData, StoredEvent } from '../live/types'
+import type { ResponseData, StoredEvent } from '../live/types'
 import { phaseAt } from '../live/schedule'
 import type { Scenario } from '../scenario/schema'
 
@@ -74,19 +74,24 @@ function group(key: string, rows: readonly DecisionRow[]): DecisionGroup {
  * Response times of every decision in a record (events in any order, the control view), at scenario
  * time `scenarioNow` (ms): an unanswered decision is `missed` once its deadline has passed, else `pending`.
  */
-export function decisionSummary(events: readonly StoredEvent[], scenario: Pick<Scenario, 'teams' | 'phases' | 'injects'>, scenarioNow: number): DecisionSummary {
+export function decisionSummary(
+  events: readonly StoredEvent[],
+  scenario: Pick<Scenario,
+  'teams' | 'phases' | 'injects'>,
+  scenarioNow: number,
+): DecisionSummary {
   const sorted = [...events].sort((a, b) => a.seq - b.seq)
   const responses = new Map<string, Array<{ e: StoredEvent; d: ResponseData }>>()
   for (const e of sorted) {
     if (e.type !== 'response.submitted') continue
-    const d = e.data as ResponseData
+    const d = e.data
     const k = `${d.injectKey}\u0000${d.teamKey}`
     responses.set(k, [...(responses.get(k) ?? []), { e, d }])
   }
   const rows: DecisionRow[] = []
   for (const e of sorted) {
     if (e.type !== 'inject.released' && e.type !== 'message.sent') continue
-    const d = e.data as InjectData
+    const d = e.data
     if (!d.decision) continue
     const deadline = Date.parse(d.decision.deadline)
     for (const teamKey of d.teams) {
@@ -99,7 +104,17 @@ export function decisionSummary(events: readonly StoredEvent[], scenario: Pick<S
         injectKey: d.key, title: d.title, phase: d.phase ?? phaseAt(scenario, e.scenarioTime), teamKey,
         releasedSeq: e.seq, releasedAt: new Date(e.scenarioTime).toISOString(), releasedWall: new Date(e.wallTime).toISOString(),
         deadline: new Date(deadline).toISOString(), allowedMin,
-        first: f ? { seq: f.e.seq, scenarioTime: new Date(f.e.scenarioTime).toISOString(), wallTime: new Date(f.e.wallTime).toISOString(), choice: f.d.choice, text: f.d.text, by: f.d.by.name, late: f.d.late } : null,
+        first: f
+          ? {
+              seq: f.e.seq,
+              scenarioTime: new Date(f.e.scenarioTime).toISOString(),
+              wallTime: new Date(f.e.wallTime).toISOString(),
+              choice: f.d.choice,
+              text: f.d.text,
+              by: f.d.by.name,
+              late: f.d.late,
+            }
+          : null,
         responseMin, responseWallMin: f ? (f.e.wallTime - e.wallTime) / MIN : null,
         shareOfAllowed: f && allowedMin > 0 ? responseMin! / allowedMin : null,
         responses: all.length, status,

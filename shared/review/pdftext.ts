@@ -2,7 +2,19 @@
  * Text for the PDF exports, which embed only the Latin subset of IBM Plex: characters outside it
  * (superscript digits, Greek letters, arrows, some maths) are written out in plain Latin.
  */
-const SUPERSCRIPTS: Record<string, string> = { '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9', '⁻': '-' }
+const SUPERSCRIPTS: Record<string, string> = {
+  '⁰': '0',
+  '¹': '1',
+  '²': '2',
+  '³': '3',
+  '⁴': '4',
+  '⁵': '5',
+  '⁶': '6',
+  '⁷': '7',
+  '⁸': '8',
+  '⁹': '9',
+  '⁻': '-',
+}
 const REPLACE: Record<string, string> = {
   'κ': 'kappa', 'σ': 'sigma', 'μ': 'micro', 'Δ': 'delta', '→': '->', '←': '<-', '≥': '>=', '≤': '<=', '≈': '~', '≠': '!=',
   '∞': 'infinity', '✓': 'yes', '✗': 'no', '☐': '[ ]', '\u00a0': ' ',

@@ -13,11 +13,20 @@ export const POETE_LABELS: Record<PoeteElement, string> = {
 
 export const ITEM_STATUSES = ['open', 'in-progress', 'done', 'cancelled'] as const
 export type ItemStatus = typeof ITEM_STATUSES[number]
-export const ITEM_STATUS_LABELS: Record<ItemStatus, string> = { 'open': 'Open', 'in-progress': 'In progress', 'done': 'Done', 'cancelled': 'Cancelled' }
+export const ITEM_STATUS_LABELS: Record<ItemStatus, string> = {
+  'open': 'Open',
+  'in-progress': 'In progress',
+  'done': 'Done',
+  'cancelled': 'Cancelled',
+}
 
 /** The hotwash notes: fixed sections that the analyst and the facilitator write together. */
 export const HOTWASH_SECTIONS = [
-  { key: 'summary', title: 'How the drill went', hint: 'The drill in a few lines: what was played, how far it got, anything that changed on the day.' },
+  {
+    key: 'summary',
+    title: 'How the drill went',
+    hint: 'The drill in a few lines: what was played, how far it got, anything that changed on the day.',
+  },
   { key: 'strengths', title: 'What worked', hint: 'What the teams named as going well, in their words.' },
   { key: 'improvements', title: 'What to improve', hint: 'What the teams would do differently next time.' },
   { key: 'follow-up', title: 'Agreed follow-up', hint: 'Who does what next, before the improvement plan is written up.' },

@@ -6,7 +6,7 @@
 import { foldEvents, type Feed } from '../live/fold'
 import { phaseAt } from '../live/schedule'
 import { canSee } from '../live/visibility'
-import type { InjectData, LiveEvent, LiveView, StoredEvent } from '../live/types'
+import type { LiveEvent, LiveView, StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
 
 /** The rooms a reviewer can look through: every team, then the control desk, the evaluators and the wall. */
@@ -21,7 +21,7 @@ export function replayRooms(scenario: Pick<Scenario, 'teams'>): Array<{ id: stri
 
 function strip(e: StoredEvent, view: LiveView): LiveEvent['data'] {
   if ((view.kind === 'player' || view.kind === 'wall') && (e.type === 'inject.released' || e.type === 'message.sent')) {
-    const { expectedActions: _e, contingency: _c, ...rest } = e.data as InjectData
+    const { expectedActions: _e, contingency: _c, ...rest } = e.data
     if (view.kind === 'wall') {
       const { decision: _d, attachments: _a, ...wall } = rest
       return wall
@@ -36,7 +36,13 @@ export function roomEvents(events: readonly StoredEvent[], view: LiveView, seq: 
   return events
     .filter(e => e.seq <= seq && canSee(view, e.audience, e.type))
     .sort((a, b) => a.seq - b.seq)
-    .map(e => ({ seq: e.seq, type: e.type, data: strip(e, view), wallTime: new Date(e.wallTime).toISOString(), scenarioTime: new Date(e.scenarioTime).toISOString() }))
+    .map(e => ({
+      seq: e.seq,
+      type: e.type,
+      data: strip(e, view),
+      wallTime: new Date(e.wallTime).toISOString(),
+      scenarioTime: new Date(e.scenarioTime).toISOString(),
+    }) as LiveEvent)
 }
 
 /** A room's desk at `seq`: its feed (injects with the bodies current then, responses, solutions …). */
@@ -47,11 +53,21 @@ export function roomFeed(events: readonly StoredEvent[], view: LiveView, seq: nu
 export interface Moment { seq: number; scenarioTime: string | null; wallTime: string | null; phase: string | null; type: string | null }
 
 /** The drill at `seq`: the times of the last event up to it and the phase then. */
-export function momentAt(events: readonly StoredEvent[], scenario: { injects: ReadonlyArray<{ at: string; phase: string }>; phases: ReadonlyArray<{ key: string }> }, seq: number): Moment {
+export function momentAt(
+  events: readonly StoredEvent[],
+  scenario: { injects: ReadonlyArray<{ at: string; phase: string }>; phases: ReadonlyArray<{ key: string }> },
+  seq: number,
+): Moment {
   let last: StoredEvent | null = null
   for (const e of events) if (e.seq <= seq && (!last || e.seq > last.seq)) last = e
   if (!last) return { seq, scenarioTime: null, wallTime: null, phase: scenario.phases[0]?.key ?? null, type: null }
-  return { seq, scenarioTime: new Date(last.scenarioTime).toISOString(), wallTime: new Date(last.wallTime).toISOString(), phase: phaseAt(scenario as Pick<Scenario, 'injects' | 'phases'>, last.scenarioTime), type: last.type }
+  return {
+    seq,
+    scenarioTime: new Date(last.scenarioTime).toISOString(),
+    wallTime: new Date(last.wallTime).toISOString(),
+    phase: phaseAt(scenario as Pick<Scenario, 'injects' | 'phases'>, last.scenarioTime),
+    type: last.type,
+  }
 }
 
 /** The last sequence number at or before a scenario time (0 before the first event). */

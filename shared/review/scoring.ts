@@ -4,21 +4,58 @@
  * every two evaluators who rated the same tasks (Cohen's kappa, see agreement.ts) and the tasks
  * they rated differently, for the hotwash.
  */
-import type { ObservationData, PersonRef, Rating, ScoreData, StoredEvent } from '../live/types'
+import type { PersonRef, Rating, StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
 import { cohenKappa, type KappaResult } from './agreement'
 import { RATINGS } from './plan'
 
 export type RatingCounts = Record<Rating, number>
 
-export interface RatingEntry { by: PersonRef; rating: Rating; note: string; seq: number; scenarioTime: string; wallTime: string; /** Earlier ratings of the same task by the same evaluator, replaced by this one. */ replaced: number }
-export interface ObservationEntry { id: string; seq: number; scenarioTime: string; wallTime: string; text: string; injectKey: string | null; teamKey: string | null; by: PersonRef }
+export interface RatingEntry {
+  by: PersonRef
+  rating: Rating
+  note: string
+  seq: number
+  scenarioTime: string
+  wallTime: string
+  /** Earlier ratings of the same task by the same evaluator, replaced by this one. */
+  replaced: number
+}
+export interface ObservationEntry {
+  id: string
+  seq: number
+  scenarioTime: string
+  wallTime: string
+  text: string
+  injectKey: string | null
+  teamKey: string | null
+  by: PersonRef
+}
 export interface TaskScore { key: string; text: string; ratings: RatingEntry[]; summary: Rating | null; disagreement: boolean }
 export interface CriterionScore { key: string; capability: string; injects: string[]; tasks: TaskScore[] }
-export interface CapabilityScore { name: string; criteria: CriterionScore[]; counts: RatingCounts; summary: Rating | null; observations: ObservationEntry[] }
-export interface ObjectiveScore { key: string; title: string; capabilities: CapabilityScore[]; counts: RatingCounts; summary: Rating | null }
+export interface CapabilityScore {
+  name: string
+  criteria: CriterionScore[]
+  counts: RatingCounts
+  summary: Rating | null
+  observations: ObservationEntry[]
+}
+export interface ObjectiveScore {
+  key: string
+  title: string
+  capabilities: CapabilityScore[]
+  counts: RatingCounts
+  summary: Rating | null
+}
 export interface AgreementPair extends KappaResult { a: PersonRef; b: PersonRef }
-export interface Disagreement { objectiveKey: string; capability: string; criterionKey: string; taskKey: string; taskText: string; ratings: RatingEntry[] }
+export interface Disagreement {
+  objectiveKey: string
+  capability: string
+  criterionKey: string
+  taskKey: string
+  taskText: string
+  ratings: RatingEntry[]
+}
 
 export interface ScoringSummary {
   objectives: ObjectiveScore[]
@@ -49,11 +86,22 @@ function latestRatings(events: readonly StoredEvent[]): Map<string, Map<string, 
   const out = new Map<string, Map<string, RatingEntry>>()
   for (const e of [...events].sort((a, b) => a.seq - b.seq)) {
     if (e.type !== 'score.recorded') continue
-    const d = e.data as ScoreData
+    const d = e.data
     const k = `${d.criterionKey}/${d.taskKey}`
     const byEvaluator = out.get(k) ?? new Map<string, RatingEntry>()
     const before = byEvaluator.get(d.by.id)
-    byEvaluator.set(d.by.id, { by: d.by, rating: d.rating, note: d.note, seq: e.seq, scenarioTime: iso(e.scenarioTime), wallTime: iso(e.wallTime), replaced: before ? before.replaced + 1 : 0 })
+    byEvaluator.set(
+      d.by.id,
+      {
+        by: d.by,
+        rating: d.rating,
+        note: d.note,
+        seq: e.seq,
+        scenarioTime: iso(e.scenarioTime),
+        wallTime: iso(e.wallTime),
+        replaced: before ? before.replaced + 1 : 0,
+      },
+    )
     out.set(k, byEvaluator)
   }
   return out
@@ -79,8 +127,17 @@ function agreementPairs(latest: Map<string, Map<string, RatingEntry>>, evaluator
 export function scoringSummary(events: readonly StoredEvent[], scenario: Pick<Scenario, 'objectives' | 'criteria'>): ScoringSummary {
   const latest = latestRatings(events)
   const observations: ObservationEntry[] = events.filter(e => e.type === 'observation.recorded').sort((a, b) => a.seq - b.seq).map((e) => {
-    const d = e.data as ObservationData
-    return { id: d.id, seq: e.seq, scenarioTime: iso(e.scenarioTime), wallTime: iso(e.wallTime), text: d.text, injectKey: d.injectKey, teamKey: d.teamKey, by: d.by }
+    const d = e.data
+    return {
+      id: d.id,
+      seq: e.seq,
+      scenarioTime: iso(e.scenarioTime),
+      wallTime: iso(e.wallTime),
+      text: d.text,
+      injectKey: d.injectKey,
+      teamKey: d.teamKey,
+      by: d.by,
+    }
   })
   const evaluatorMap = new Map<string, PersonRef>()
   for (const byEvaluator of latest.values()) for (const r of byEvaluator.values()) evaluatorMap.set(r.by.id, r.by)
@@ -101,14 +158,27 @@ export function scoringSummary(events: readonly StoredEvent[], scenario: Pick<Sc
           for (const r of ratings) taskCounts[r.rating]++
           add(counts, taskCounts)
           const disagreement = new Set(ratings.map(r => r.rating)).size > 1
-          if (disagreement) disagreements.push({ objectiveKey: o.key, capability: name, criterionKey: c.key, taskKey: t.key, taskText: t.text, ratings })
+          if (disagreement) disagreements.push({
+            objectiveKey: o.key,
+            capability: name,
+            criterionKey: c.key,
+            taskKey: t.key,
+            taskText: t.text,
+            ratings,
+          })
           return { key: t.key, text: t.text, ratings, summary: summaryRating(taskCounts), disagreement }
         })
         return { key: c.key, capability: c.capability, injects: c.injects, tasks }
       })
       const injects = new Set(own.flatMap(c => c.injects))
       add(objectiveCounts, counts)
-      return { name, criteria: own, counts, summary: summaryRating(counts), observations: observations.filter(x => x.injectKey && injects.has(x.injectKey)) }
+      return {
+        name,
+        criteria: own,
+        counts,
+        summary: summaryRating(counts),
+        observations: observations.filter(x => x.injectKey && injects.has(x.injectKey)),
+      }
     })
     add(total, objectiveCounts)
     return { key: o.key, title: o.title, capabilities, counts: objectiveCounts, summary: summaryRating(objectiveCounts) }

@@ -1,8 +1,5 @@
 /** The exercise timeline as rows: one per event of the record, for the exports and the review desk. */
-import type {
-  ClockChangedData, InjectData, InjectHeldData, InjectRevisedData, ObservationData, ResponseData,
-  ScoreData, SolutionPublishedData, StoredEvent,
-} from '../live/types'
+import type { StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
 
 export interface TimelineRow {
@@ -38,44 +35,68 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
   const none = { teams: '', phase: '', injectKey: '', summary: '', detail: '' }
   switch (e.type) {
     case 'clock.changed': {
-      const d = e.data as ClockChangedData
-      return { ...none, summary: `Clock: ${d.action}${d.clock.paused ? ' (paused)' : ''}`, detail: `speed ×${Math.round(d.clock.factor)}${d.from ? `; from ${d.from}` : ''}` }
+      const d = e.data
+      return {
+        ...none,
+        summary: `Clock: ${d.action}${d.clock.paused ? ' (paused)' : ''}`,
+        detail: `speed ×${Math.round(d.clock.factor)}${d.from ? `; from ${d.from}` : ''}`,
+      }
     }
     case 'solution.published': {
-      const d = e.data as SolutionPublishedData
-      return { ...none, summary: `Orbit solution published: ${d.label}`, detail: `impact probability ${pct(d.headline.impactProbability)}; energy ${d.headline.text.energyMt}; Torino ${d.headline.torino}; ${d.manual ? 'by hand' : 'on schedule'}` }
+      const d = e.data
+      return {
+        ...none,
+        summary: `Orbit solution published: ${d.label}`,
+        detail: `impact probability ${pct(d.headline.impactProbability)}; energy ${d.headline.text.energyMt}; Torino ${d.headline.torino}; ${d.manual ? 'by hand' : 'on schedule'}`,
+      }
     }
     case 'inject.released':
     case 'message.sent': {
-      const d = e.data as InjectData
+      const d = e.data
       return {
         teams: d.teams.map(teamName).join('; '), phase: d.phase ?? '', injectKey: d.key,
         summary: `${d.adhoc ? 'Message' : 'Inject released'}: ${d.title}`,
-        detail: [d.kind, d.manual ? 'by hand' : 'on schedule', d.decision ? `decision due ${d.decision.deadline}` : ''].filter(Boolean).join('; '),
+        detail: [
+          d.kind,
+          d.manual ? 'by hand' : 'on schedule',
+          d.decision ? `decision due ${d.decision.deadline}` : '',
+        ].filter(Boolean).join('; '),
       }
     }
     case 'inject.revised': {
-      const d = e.data as InjectRevisedData
-      return { ...none, teams: d.teams.map(teamName).join('; '), injectKey: d.key, summary: `Figures revised (revision ${d.revision})`, detail: `from solution ${d.previousSolutionKey ?? '—'} to ${d.solutionKey ?? '—'}` }
+      const d = e.data
+      return {
+        ...none,
+        teams: d.teams.map(teamName).join('; '),
+        injectKey: d.key,
+        summary: `Figures revised (revision ${d.revision})`,
+        detail: `from solution ${d.previousSolutionKey ?? '—'} to ${d.solutionKey ?? '—'}`,
+      }
     }
     case 'inject.held': {
-      const d = e.data as InjectHeldData
+      const d = e.data
       return { ...none, teams: d.teams.map(teamName).join('; '), injectKey: d.key, summary: `Inject held: ${d.title}` }
     }
     case 'response.submitted': {
-      const d = e.data as ResponseData
-      return { ...none, teams: teamName(d.teamKey), injectKey: d.injectKey, summary: `Response${d.choice ? `: ${d.choice}` : ''}${d.late ? ' (late)' : ''}`, detail: d.text }
+      const d = e.data
+      return {
+        ...none,
+        teams: teamName(d.teamKey),
+        injectKey: d.injectKey,
+        summary: `Response${d.choice ? `: ${d.choice}` : ''}${d.late ? ' (late)' : ''}`,
+        detail: d.text,
+      }
     }
     case 'score.recorded': {
-      const d = e.data as ScoreData
+      const d = e.data
       return { ...none, summary: `Rating ${d.rating}: ${d.criterionKey} / ${d.taskKey}`, detail: d.note }
     }
     case 'observation.recorded': {
-      const d = e.data as ObservationData
+      const d = e.data
       return { ...none, teams: d.teamKey ? teamName(d.teamKey) : '', injectKey: d.injectKey ?? '', summary: 'Observation', detail: d.text }
     }
     default:
-      return { ...none, summary: e.type }
+      return { ...none, summary: (e as StoredEvent).type }
   }
 }
 

@@ -26,7 +26,11 @@ export const clockActionSchema = z.object({
   toNextInject: z.boolean().optional(),
 }).superRefine((v, ctx) => {
   if (v.action === 'speed' && v.factor === undefined) ctx.addIssue({ code: 'custom', path: ['factor'], message: 'Give the new speed.' })
-  if (v.action === 'jump' && !v.to === !v.toNextInject) ctx.addIssue({ code: 'custom', path: ['to'], message: 'Give either a scenario time or toNextInject.' })
+  if (v.action === 'jump' && !v.to === !v.toNextInject) ctx.addIssue({
+    code: 'custom',
+    path: ['to'],
+    message: 'Give either a scenario time or toNextInject.',
+  })
 })
 export type ClockActionInput = z.infer<typeof clockActionSchema>
 

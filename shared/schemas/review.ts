@@ -59,7 +59,10 @@ export const hotwashSchema = z.object({
 
 const rating = z.number({ error: 'Choose 1 to 5.' }).int('Choose 1 to 5.').min(1, 'Choose 1 to 5.').max(5, 'Choose 1 to 5.')
 export const feedbackSchema = z.object({
-  ratings: z.object(Object.fromEntries(FEEDBACK_QUESTIONS.map(q => [q.key, rating])) as Record<typeof FEEDBACK_QUESTIONS[number]['key'], typeof rating>),
+  ratings: z.object(
+    Object.fromEntries(FEEDBACK_QUESTIONS.map(q => [q.key, rating])) as Record<typeof FEEDBACK_QUESTIONS[number]['key'],
+    typeof rating>,
+  ),
   wentWell: z.string().trim().max(4000, 'At most 4000 characters.').default(''),
   toImprove: z.string().trim().max(4000, 'At most 4000 characters.').default(''),
 })

@@ -1,4 +1,13 @@
-import type { accountTokens, auditLog, exerciseAttachments, exercises, memberships, scenarioAttachments, scenarios, users } from '../../server/db/schema'
+import type {
+  accountTokens,
+  auditLog,
+  exerciseAttachments,
+  exercises,
+  memberships,
+  scenarioAttachments,
+  scenarios,
+  users,
+} from '../../server/db/schema'
 
 export type User = typeof users.$inferSelect
 export type NewUser = typeof users.$inferInsert

@@ -1,6 +1,16 @@
 import { z } from 'zod'
 
-const COMMON = new Set(['password', 'password1', 'password123', '1234567890', 'qwertyuiop', 'letmein123', 'iloveyou12', 'brinkwater', 'changeme123'])
+const COMMON = new Set([
+  'password',
+  'password1',
+  'password123',
+  '1234567890',
+  'qwertyuiop',
+  'letmein123',
+  'iloveyou12',
+  'brinkwater',
+  'changeme123',
+])
 
 /** Password policy: at least 10 characters, at most 200, not a well-known password. */
 export const passwordSchema = z.string()

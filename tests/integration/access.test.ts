@@ -1,7 +1,7 @@
 // Every route against every role: anonymous → 401, signed in but not allowed → 403 (or 404
 // where the existence of an exercise must not leak).
 import { beforeAll, describe, expect, it } from 'vitest'
-import { as, Client, newMember, type DemoKey } from './helpers'
+import { as, Client, newMember, type DemoKey } from '../support/client'
 
 const ALL: DemoKey[] = ['admin', 'facilitator', 'science', 'civil', 'comms', 'evaluator', 'analyst']
 let exerciseId = ''

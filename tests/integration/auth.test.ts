@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { as, Client, DEMO, DEMO_PASSWORD, mailTo, newMember } from './helpers'
+import { as, Client, DEMO, DEMO_PASSWORD, mailTo, newMember } from '../support/client'
 
 describe('sign-in', () => {
   it('signs in with e-mail and password, reports the user, and signs out', async () => {

@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import Papa from 'papaparse'
 import ExcelJS from 'exceljs'
-import { Client } from './helpers'
-import { closeSockets, newLiveExercise, type LiveCast } from './live-helpers'
+import { Client } from '../support/client'
+import { closeSockets, newLiveExercise, type LiveCast } from '../support/live'
 
 let cast: LiveCast
 const FORMULA = '=HYPERLINK("http://attacker.example","click")'
@@ -26,7 +26,7 @@ beforeAll(async () => {
 afterAll(() => closeSockets())
 
 async function download(c: Client, path: string) {
-  const res = await fetch(`${(await import('./helpers')).baseUrl()}${path}`, { headers: { cookie: c.cookieHeader } })
+  const res = await fetch(`${(await import('../support/client')).baseUrl()}${path}`, { headers: { cookie: c.cookieHeader } })
   return { status: res.status, headers: res.headers, bytes: new Uint8Array(await res.arrayBuffer()) }
 }
 
@@ -47,7 +47,13 @@ describe('timeline exports', () => {
     const seqs = (Array.isArray(events) ? events : events.events).map((e: { seq: number }) => e.seq)
     expect(res.json.events.map((e: { seq: number }) => e.seq)).toEqual(seqs)
     expect(res.json.rows).toHaveLength(seqs.length)
-    expect(res.json.events.map((e: { type: string }) => e.type)).toEqual(expect.arrayContaining(['clock.changed', 'solution.published', 'inject.released', 'response.submitted', 'score.recorded']))
+    expect(res.json.events.map((e: { type: string }) => e.type)).toEqual(expect.arrayContaining([
+      'clock.changed',
+      'solution.published',
+      'inject.released',
+      'response.submitted',
+      'score.recorded',
+    ]))
   })
 
   it('CSV has one row per event after the marking and caution, and formulas are defused', async () => {

@@ -1,8 +1,8 @@
 // The live routes against every role: anonymous → 401, non-member → 404, another role → 403, the
 // allowed roles get through to validation (400 with field issues) or an answer.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { as, Client } from './helpers'
-import { ikey, newLiveExercise, newPerson, type LiveCast, type Person } from './live-helpers'
+import { as, Client } from '../support/client'
+import { ikey, newLiveExercise, newPerson, type LiveCast, type Person } from '../support/live'
 
 type Who = 'facilitator' | 'science' | 'evaluator' | 'analyst'
 interface Route { name: string; method: 'GET' | 'POST' | 'DELETE'; path: string; body?: unknown; allowed: Who[]; badField?: string }
@@ -15,18 +15,56 @@ const ROUTES: Route[] = [
   { name: 'release', method: 'POST', path: '/injects/Not_A_Key/release', allowed: ['facilitator'], badField: 'key' },
   { name: 'hold', method: 'POST', path: '/injects/Not_A_Key/hold', allowed: ['facilitator'], badField: 'key' },
   { name: 'publish', method: 'POST', path: '/solutions/Not_A_Key/publish', allowed: ['facilitator'], badField: 'key' },
-  { name: 'messages', method: 'POST', path: '/messages', body: { teams: [], title: 'x', body: 'y', idempotencyKey: 'k-12345678' }, allowed: ['facilitator'], badField: 'teams' },
-  { name: 'responses', method: 'POST', path: '/responses', body: { injectKey: 'survey-candidate', text: 'x' }, allowed: ['science'], badField: 'idempotencyKey' },
-  { name: 'scores', method: 'POST', path: '/scores', body: { criterionKey: 'figures-of-record', taskKey: 'x', rating: 'A', idempotencyKey: 'k-12345678' }, allowed: ['evaluator', 'facilitator'], badField: 'rating' },
-  { name: 'observations', method: 'POST', path: '/observations', body: { text: '', idempotencyKey: 'k-12345678' }, allowed: ['evaluator', 'facilitator'], badField: 'text' },
+  {
+    name: 'messages',
+    method: 'POST',
+    path: '/messages',
+    body: { teams: [], title: 'x', body: 'y', idempotencyKey: 'k-12345678' },
+    allowed: ['facilitator'],
+    badField: 'teams',
+  },
+  {
+    name: 'responses',
+    method: 'POST',
+    path: '/responses',
+    body: { injectKey: 'survey-candidate', text: 'x' },
+    allowed: ['science'],
+    badField: 'idempotencyKey',
+  },
+  {
+    name: 'scores',
+    method: 'POST',
+    path: '/scores',
+    body: { criterionKey: 'figures-of-record', taskKey: 'x', rating: 'A', idempotencyKey: 'k-12345678' },
+    allowed: ['evaluator', 'facilitator'],
+    badField: 'rating',
+  },
+  {
+    name: 'observations',
+    method: 'POST',
+    path: '/observations',
+    body: { text: '', idempotencyKey: 'k-12345678' },
+    allowed: ['evaluator', 'facilitator'],
+    badField: 'text',
+  },
   { name: 'wall-tokens create', method: 'POST', path: '/wall-tokens', body: { label: 42 }, allowed: ['facilitator'], badField: 'label' },
   { name: 'wall-tokens revoke', method: 'DELETE', path: '/wall-tokens/not-a-uuid', allowed: ['facilitator'], badField: 'tokenId' },
   { name: 'wall-tokens list', method: 'GET', path: '/wall-tokens', allowed: ['facilitator'] },
-  { name: 'events', method: 'GET', path: '/events?since=-1', allowed: ['facilitator', 'science', 'evaluator', 'analyst'], badField: 'since' },
+  {
+    name: 'events',
+    method: 'GET',
+    path: '/events?since=-1',
+    allowed: ['facilitator', 'science', 'evaluator', 'analyst'],
+    badField: 'since',
+  },
   { name: 'live', method: 'GET', path: '/live', allowed: ['facilitator', 'science', 'evaluator', 'analyst'] },
 ]
 
-const call = (c: Client, r: Route, exerciseId: string) => c.request(r.method, `/api/exercises/${exerciseId}${r.path}`, r.method === 'POST' ? (r.body ?? {}) : undefined)
+const call = (c: Client, r: Route, exerciseId: string) => c.request(
+  r.method,
+  `/api/exercises/${exerciseId}${r.path}`,
+  r.method === 'POST' ? (r.body ?? {}) : undefined,
+)
 
 beforeAll(async () => {
   cast = await newLiveExercise('Access matrix drill')
@@ -88,15 +126,27 @@ describe('field issues', () => {
   })
 
   it('a message to an unknown team, of an unknown kind, with a misspelt hazard field', async () => {
-    const res = await post('facilitator', '/messages', { teams: ['science', 'ops'], kind: 'telegram', title: 'T', body: 'Energy {{ energyMT }}', idempotencyKey: ikey() })
+    const res = await post(
+      'facilitator',
+      '/messages',
+      { teams: ['science', 'ops'], kind: 'telegram', title: 'T', body: 'Energy {{ energyMT }}', idempotencyKey: ikey() },
+    )
     expect(res.status).toBe(400)
     expect(paths(res)).toEqual(['teams[1]', 'kind', 'body'])
     expect(res.json.data.issues[2].message).toMatch(/energyMt/)
   })
 
   it('a score for an unknown criterion or task', async () => {
-    expect(paths(await post('evaluator', '/scores', { criterionKey: 'nope', taskKey: 'notify-early', rating: 'P', idempotencyKey: ikey() }))).toEqual(['criterionKey'])
-    expect(paths(await post('evaluator', '/scores', { criterionKey: 'notification-and-coordination', taskKey: 'nope', rating: 'P', idempotencyKey: ikey() }))).toEqual(['taskKey'])
+    expect(paths(await post(
+      'evaluator',
+      '/scores',
+      { criterionKey: 'nope', taskKey: 'notify-early', rating: 'P', idempotencyKey: ikey() },
+    ))).toEqual(['criterionKey'])
+    expect(paths(await post(
+      'evaluator',
+      '/scores',
+      { criterionKey: 'notification-and-coordination', taskKey: 'nope', rating: 'P', idempotencyKey: ikey() },
+    ))).toEqual(['taskKey'])
   })
 
   it('a response with neither choice nor text, and an observation about an unknown team', async () => {

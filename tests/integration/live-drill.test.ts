@@ -1,7 +1,7 @@
 // A drill played through the live API on a compressed clock: the scheduler, manual releases, holds,
 // contingencies, solution publications with revised injects, responses, scores and desk snapshots.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { closeSockets, ikey, liveSocket, newLiveExercise, ready, until, type LiveCast, type LiveSocket } from './live-helpers'
+import { closeSockets, ikey, liveSocket, newLiveExercise, ready, until, type LiveCast, type LiveSocket } from '../support/live'
 
 let cast: LiveCast
 let socks: Record<'control' | 'science' | 'civil' | 'comms' | 'evaluator', LiveSocket>
@@ -163,7 +163,12 @@ describe('revisions', () => {
 
 describe('responses, messages, scores', () => {
   it('takes a response once per idempotency key and shows it to the team and staff only', async () => {
-    const body = { injectKey: 'notify-civil-protection', choice: 'Informal heads-up to the Directorate\'s duty officer today', text: 'Calling the duty officer.', idempotencyKey: ikey() }
+    const body = {
+      injectKey: 'notify-civil-protection',
+      choice: 'Informal heads-up to the Directorate\'s duty officer today',
+      text: 'Calling the duty officer.',
+      idempotencyKey: ikey(),
+    }
     const first = await cast.science.client.post(url('/responses'), body)
     expect(first.status).toBe(201)
     const second = await cast.science.client.post(url('/responses'), body)
@@ -181,15 +186,26 @@ describe('responses, messages, scores', () => {
   })
 
   it('refuses a response to another team\'s inject (404) and a choice the inject does not offer (400)', async () => {
-    const other = await cast.civil.client.post(url('/responses'), { injectKey: 'notify-civil-protection', text: 'x', idempotencyKey: ikey() })
+    const other = await cast.civil.client.post(
+      url('/responses'),
+      { injectKey: 'notify-civil-protection', text: 'x', idempotencyKey: ikey() },
+    )
     expect(other.status).toBe(404)
-    const bad = await cast.science.client.post(url('/responses'), { injectKey: 'notify-civil-protection', choice: 'Launch a rocket', text: '', idempotencyKey: ikey() })
+    const bad = await cast.science.client.post(
+      url('/responses'),
+      { injectKey: 'notify-civil-protection', choice: 'Launch a rocket', text: '', idempotencyKey: ikey() },
+    )
     expect(bad.status).toBe(400)
     expect(bad.json.data.issues[0].path).toBe('choice')
   })
 
   it('sends an ad-hoc message to two teams, once per idempotency key, with figures filled in', async () => {
-    const body = { teams: ['civil', 'comms'], title: 'Check your phones', body: 'Current odds {{ impactProbability | odds }}.', idempotencyKey: ikey() }
+    const body = {
+      teams: ['civil', 'comms'],
+      title: 'Check your phones',
+      body: 'Current odds {{ impactProbability | odds }}.',
+      idempotencyKey: ikey(),
+    }
     const first = await cast.facilitator.client.post(url('/messages'), body)
     expect(first.status).toBe(201)
     expect((await cast.facilitator.client.post(url('/messages'), body)).json.event.seq).toBe(first.json.event.seq)
@@ -203,9 +219,21 @@ describe('responses, messages, scores', () => {
   })
 
   it('records scores and observations for staff, never for players', async () => {
-    const score = await cast.evaluator.client.post(url('/scores'), { criterionKey: 'notification-and-coordination', taskKey: 'notify-early', rating: 'S', note: 'Same day, informal.', idempotencyKey: ikey() })
+    const score = await cast.evaluator.client.post(
+      url('/scores'),
+      {
+        criterionKey: 'notification-and-coordination',
+        taskKey: 'notify-early',
+        rating: 'S',
+        note: 'Same day, informal.',
+        idempotencyKey: ikey(),
+      },
+    )
     expect(score.status).toBe(201)
-    const obs = await cast.facilitator.client.post(url('/observations'), { text: 'Science cell hesitated.', teamKey: 'science', injectKey: 'notify-civil-protection', idempotencyKey: ikey() })
+    const obs = await cast.facilitator.client.post(
+      url('/observations'),
+      { text: 'Science cell hesitated.', teamKey: 'science', injectKey: 'notify-civil-protection', idempotencyKey: ikey() },
+    )
     expect(obs.status).toBe(201)
     await until(() => socks.control.events.find(e => e.seq === score.json.event.seq), 5000, 'score at control')
     await until(() => socks.evaluator.events.find(e => e.seq === obs.json.event.seq), 5000, 'observation at evaluators')

@@ -2,8 +2,8 @@
 // drop, and the wall view by share link.
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
 import { io } from 'socket.io-client'
-import { baseUrl, Client } from './helpers'
-import { closeSockets, liveSocket, newLiveExercise, newPerson, ready, refused, until, type LiveCast, type LiveSocket } from './live-helpers'
+import { baseUrl, Client } from '../support/client'
+import { closeSockets, liveSocket, newLiveExercise, newPerson, ready, refused, until, type LiveCast, type LiveSocket } from '../support/live'
 
 let cast: LiveCast
 const url = (path: string) => `/api/exercises/${cast.id}${path}`
@@ -31,7 +31,10 @@ describe('joining', () => {
   it('a signed-in non-member is refused with "forbidden", an anonymous one with "unauthorized"', async () => {
     const outsider = await newPerson('Realtime outsider')
     expect(await refused(liveSocket(outsider.client.cookieHeader, { exerciseId: cast.id }))).toBe('forbidden')
-    expect(await refused(liveSocket(outsider.client.cookieHeader, { exerciseId: '00000000-0000-4000-8000-000000000000' }))).toBe('forbidden')
+    expect(await refused(liveSocket(
+      outsider.client.cookieHeader,
+      { exerciseId: '00000000-0000-4000-8000-000000000000' },
+    ))).toBe('forbidden')
     expect(await refused(liveSocket(null, { exerciseId: cast.id }))).toBe('unauthorized')
     expect(await refused(liveSocket(outsider.client.cookieHeader, { exerciseId: 'nope' }))).toBe('invalid-auth')
   })

@@ -7,9 +7,9 @@ import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { io } from 'socket.io-client'
-import { freePort } from './global-setup'
-import { DEMO, DEMO_PASSWORD } from './helpers'
-import { until } from './live-helpers'
+import { freePort } from '../support/ports'
+import { DEMO, DEMO_PASSWORD } from '../support/client'
+import { until } from '../support/live'
 
 const dir = mkdtempSync(join(tmpdir(), 'brinkwater-restart-'))
 let base = ''
@@ -17,7 +17,11 @@ let env: NodeJS.ProcessEnv = {}
 let server: ChildProcess | undefined
 
 async function startServer() {
-  server = spawn(process.execPath, [resolve(import.meta.dirname, '../..', process.env.BW_OUTPUT_DIR || '.output', 'server/index.mjs')], { env, stdio: ['ignore', 'ignore', 'inherit'] })
+  server = spawn(
+    process.execPath,
+    [resolve(import.meta.dirname, '../..', process.env.BW_OUTPUT_DIR || '.output', 'server/index.mjs')],
+    { env, stdio: ['ignore', 'ignore', 'inherit'] },
+  )
   const deadline = Date.now() + 60_000
   for (;;) {
     try {
@@ -124,7 +128,17 @@ describe('a server killed mid-drill', () => {
 
   it('survives a kill in the middle of a long jump: every due solution and inject goes out exactly once', async () => {
     const science = await Http.signIn(DEMO.science)
-    const socket = io(base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie: science.cookie }, auth: { exerciseId, lastSeq: 0 } })
+    const socket = io(
+      base,
+      {
+        path: '/socket.io/',
+        transports: ['websocket'],
+        forceNew: true,
+        reconnection: false,
+        extraHeaders: { cookie: science.cookie },
+        auth: { exerciseId, lastSeq: 0 },
+      },
+    )
     const seen: Ev[] = []
     socket.on('event', (e: Ev) => seen.push(e))
     await new Promise(r => socket.once('live:ready', r))
@@ -147,13 +161,30 @@ describe('a server killed mid-drill', () => {
     const keys = releases(events)
     expect(new Set(keys).size).toBe(keys.length)
     const solutions = events.filter(e => e.type === 'solution.published').map(e => e.data.key)
-    expect(solutions).toEqual(['s1-discovery', 's2-twelve-day-arc', 's3-precovery', 's4-spectrum', 's5-more-likely-than-not', 's6-near-certain'])
+    expect(solutions).toEqual([
+      's1-discovery',
+      's2-twelve-day-arc',
+      's3-precovery',
+      's4-spectrum',
+      's5-more-likely-than-not',
+      's6-near-certain',
+    ])
     expect(keys).not.toContain('contingency-deflection')
 
     // What the science socket saw before the kill is still the record's.
     const bySeq = new Map(events.map(e => [e.seq, e]))
     for (const e of seen) expect(bySeq.get(e.seq)?.type).toBe(e.type)
-    const resumed = io(base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie: science.cookie }, auth: { exerciseId, lastSeq: Math.max(0, ...seen.map(e => e.seq)) } })
+    const resumed = io(
+      base,
+      {
+        path: '/socket.io/',
+        transports: ['websocket'],
+        forceNew: true,
+        reconnection: false,
+        extraHeaders: { cookie: science.cookie },
+        auth: { exerciseId, lastSeq: Math.max(0, ...seen.map(e => e.seq)) },
+      },
+    )
     const missed: Ev[] = []
     resumed.on('event', (e: Ev) => missed.push(e))
     await new Promise(r => resumed.once('live:ready', r))

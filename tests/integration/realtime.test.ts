@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest'
 import { io, type Socket } from 'socket.io-client'
-import { as, baseUrl } from './helpers'
+import { as, baseUrl } from '../support/client'
 
 const sockets: Socket[] = []
 afterEach(() => { while (sockets.length) sockets.pop()!.close() })

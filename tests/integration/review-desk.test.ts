@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { Client } from './helpers'
-import { closeSockets } from './live-helpers'
-import { KAPPA_BY_HAND, playReviewDrill, RATED, type ReviewDrill } from './review-drill'
+import { Client } from '../support/client'
+import { closeSockets } from '../support/live'
+import { KAPPA_BY_HAND, playReviewDrill, RATED, type ReviewDrill } from '../support/review-drill'
 
 let d: ReviewDrill
 const url = (p = '') => `/api/exercises/${d.id}${p}`
@@ -12,7 +12,12 @@ afterAll(() => closeSockets())
 describe('the review desk', () => {
   it('opens for the analyst, the facilitator and the evaluators, not for players or strangers', async () => {
     for (const who of [d.analyst, d.facilitator, d.evaluator, d.evaluator2]) {
-      for (const part of ['/review', '/review/decisions', '/review/scoring', '/review/replay']) expect((await who.client.get(url(part))).status, part).toBe(200)
+      for (const part of [
+        '/review',
+        '/review/decisions',
+        '/review/scoring',
+        '/review/replay',
+      ]) expect((await who.client.get(url(part))).status, part).toBe(200)
     }
     for (const who of [d.science, d.civil, d.comms]) {
       const res = await who.client.get(url('/review'))
@@ -20,7 +25,7 @@ describe('the review desk', () => {
       expect(res.json.message).toMatch(/role/i)
     }
     expect((await new Client().get(url('/review'))).status).toBe(401)
-    const { client: stranger } = await (await import('./live-helpers')).newPerson('Stranger')
+    const { client: stranger } = await (await import('../support/live')).newPerson('Stranger')
     expect((await stranger.get(url('/review'))).status).toBe(404)
   })
 
@@ -28,7 +33,10 @@ describe('the review desk', () => {
     const res = await d.analyst.client.get(url('/review'))
     const events = (await d.facilitator.client.get(url('/events?since=0&limit=1000'))).json.events
     expect(res.json.timeline.map((r: { seq: number }) => r.seq)).toEqual(events.map((e: { seq: number }) => e.seq))
-    const response = res.json.timeline.find((r: { type: string; injectKey: string }) => r.type === 'response.submitted' && r.injectKey === 'blogger-risk-table')
+    const response = res.json.timeline.find((r: {
+      type: string
+      injectKey: string
+    }) => r.type === 'response.submitted' && r.injectKey === 'blogger-risk-table')
     expect(response).toMatchObject({ teamKeys: ['comms'], phaseKey: 'detection' })
     expect(response.wallTime).toMatch(/Z$/)
     expect(response.scenarioTime).toMatch(/^2031-03-07/)
@@ -67,7 +75,8 @@ describe('the review desk', () => {
     expect(pair.expected).toBeCloseTo(1 / 4, 10)
     expect(pair.kappa).toBeCloseTo(KAPPA_BY_HAND, 10)
     expect(pair.strength).toBe('moderate')
-    expect(json.disagreements.map((x: { taskKey: string }) => x.taskKey).sort()).toEqual(RATED.filter(r => r.a !== r.b).map(r => r.taskKey).sort())
+    const disagreed = RATED.filter(r => r.a !== r.b).map(r => r.taskKey).sort()
+    expect(json.disagreements.map((x: { taskKey: string }) => x.taskKey).sort()).toEqual(disagreed)
 
     const picture = json.objectives.find((o: { key: string }) => o.key === 'shared-picture')
     const situational = picture.capabilities.find((c: { name: string }) => c.name === 'Situational Assessment')

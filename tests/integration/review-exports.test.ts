@@ -3,9 +3,9 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { as, baseUrl, Client } from './helpers'
-import { closeSockets } from './live-helpers'
-import { playReviewDrill, type ReviewDrill } from './review-drill'
+import { as, baseUrl, Client } from '../support/client'
+import { closeSockets } from '../support/live'
+import { playReviewDrill, type ReviewDrill } from '../support/review-drill'
 import { rangeText } from '../../shared/geo/figures'
 import { compactText } from '../../shared/geo/threat'
 import type { Assessment } from '../../shared/hazard/types'
@@ -14,7 +14,15 @@ let d: ReviewDrill
 let dir: string
 const url = (p = '') => `/api/exercises/${d.id}${p}`
 const flat = (s: string) => s.replace(/\s+/g, ' ').trim()
-const ITEM = { objectiveKey: 'public-warning', capability: 'Public Information and Warning', action: 'Pre-clear a holding statement template for impact threats', element: 'planning', owner: 'Joint Information Centre lead', startDate: '2031-10-01', dueDate: '2031-12-15' }
+const ITEM = {
+  objectiveKey: 'public-warning',
+  capability: 'Public Information and Warning',
+  action: 'Pre-clear a holding statement template for impact threats',
+  element: 'planning',
+  owner: 'Joint Information Centre lead',
+  startDate: '2031-10-01',
+  dueDate: '2031-12-15',
+}
 
 async function download(c: Client, path: string) {
   const res = await fetch(`${baseUrl()}${path}`, { headers: { cookie: c.cookieHeader } })
@@ -34,14 +42,36 @@ beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'bw-review-pdf-'))
   d = await playReviewDrill('Report check drill')
   const a = d.analyst.client
-  const area = await a.post(url('/findings'), { kind: 'improvement', objectiveKey: 'public-warning', capability: 'Public Information and Warning', title: 'The holding statement came late', detail: 'No template had been cleared in advance.' })
+  const area = await a.post(
+    url('/findings'),
+    {
+      kind: 'improvement',
+      objectiveKey: 'public-warning',
+      capability: 'Public Information and Warning',
+      title: 'The holding statement came late',
+      detail: 'No template had been cleared in advance.',
+    },
+  )
   expect(area.status).toBe(201)
-  expect((await a.post(url('/findings'), { kind: 'strength', objectiveKey: 'shared-picture', capability: 'Operational Coordination', title: 'Notification on the first day' })).status).toBe(201)
+  expect((await a.post(
+    url('/findings'),
+    { kind: 'strength', objectiveKey: 'shared-picture', capability: 'Operational Coordination', title: 'Notification on the first day' },
+  )).status).toBe(201)
   const made = await a.post(url('/improvements'), { ...ITEM, findingId: area.json.id })
   expect(made.status).toBe(201)
   expect((await a.patch(url(`/improvements/${made.json.id}`), { status: 'in-progress' })).status).toBe(200)
-  expect((await a.put(url('/hotwash/follow-up'), { body: 'The press office drafts the template by October.', revision: 0 })).status).toBe(200)
-  expect((await d.civil.client.post(url('/feedback'), { ratings: { objectives: 4, realism: 4, figures: 5, coordination: 3, pace: 2 }, wentWell: 'Clear odds.', toImprove: 'More time per decision.' })).status).toBe(200)
+  expect((await a.put(
+    url('/hotwash/follow-up'),
+    { body: 'The press office drafts the template by October.', revision: 0 },
+  )).status).toBe(200)
+  expect((await d.civil.client.post(
+    url('/feedback'),
+    {
+      ratings: { objectives: 4, realism: 4, figures: 5, coordination: 3, pace: 2 },
+      wentWell: 'Clear odds.',
+      toImprove: 'More time per decision.',
+    },
+  )).status).toBe(200)
 }, 180_000)
 afterAll(() => {
   closeSockets()
@@ -72,7 +102,22 @@ describe('the after-action report PDF', () => {
       expect(p, `page ${i + 1}`).toContain(`Page ${i + 1} of ${pages.length}`)
     })
     const text = flat(pages.join(' '))
-    for (const title of ['After-action report', 'Overview', 'Objectives', 'Scenario summary', 'How the threat evolved', 'Timeline (condensed)', 'Decisions and response times', 'Scores by objective and capability', 'Agreement between evaluators', 'Disagreements for the hotwash', 'Observations', 'Hotwash and participant feedback', 'Findings', 'Improvement plan']) {
+    for (const title of [
+      'After-action report',
+      'Overview',
+      'Objectives',
+      'Scenario summary',
+      'How the threat evolved',
+      'Timeline (condensed)',
+      'Decisions and response times',
+      'Scores by objective and capability',
+      'Agreement between evaluators',
+      'Disagreements for the hotwash',
+      'Observations',
+      'Hotwash and participant feedback',
+      'Findings',
+      'Improvement plan',
+    ]) {
       expect(text).toContain(title)
     }
     expect(text).toContain('Report check drill')
@@ -125,7 +170,11 @@ describe('the inject cards PDF', () => {
       expect(pages[i]).toContain('EXERCISE — EXERCISE — EXERCISE')
     })
     const all = pages.join(' ')
-    for (const hidden of ['Give at least an informal heads-up the same day', 'Issue a short holding statement the same day, cleared with the science cell', 'Propose explicit escalation thresholds']) {
+    for (const hidden of [
+      'Give at least an informal heads-up the same day',
+      'Issue a short holding statement the same day, cleared with the science cell',
+      'Propose explicit escalation thresholds',
+    ]) {
       expect(all).not.toContain(hidden)
     }
     const notify = pages.find(p => p.includes('Do we tell civil protection now?'))!
@@ -145,16 +194,28 @@ describe('the report by e-mail', () => {
     const outsider = await d.analyst.client.post(url('/report/send'), { userIds: [d.science.id, crypto.randomUUID()] })
     expect(outsider.status).toBe(400)
     expect(outsider.json.data.issues).toEqual([{ path: 'userIds[1]', message: 'not a member of this exercise' }])
-    const sent = await d.analyst.client.post(url('/report/send'), { userIds: [d.science.id, d.civil.id], message: 'Our report, for the next planning meeting.' })
+    const sent = await d.analyst.client.post(
+      url('/report/send'),
+      { userIds: [d.science.id, d.civil.id], message: 'Our report, for the next planning meeting.' },
+    )
     expect(sent.status).toBe(200)
     expect(sent.json.sent).toBe(2)
     const admin = await as('admin')
-    const box = (await admin.get('/api/dev/mailbox')).json as Array<{ to: string; subject: string; text: string; attachments: Array<{ filename: string; contentType: string; size: number }> }>
+    const box = (await admin.get('/api/dev/mailbox')).json as Array<{
+      to: string
+      subject: string
+      text: string
+      attachments: Array<{ filename: string; contentType: string; size: number }>
+    }>
     for (const who of [d.science, d.civil]) {
       const mail = box.find(m => m.to.includes(who.email) && /After-action report/.test(m.subject))
       expect(mail, who.email).toBeTruthy()
       expect(mail!.text).toContain('Our report, for the next planning meeting.')
-      expect(mail!.attachments).toEqual([{ filename: 'Report-check-drill-after-action-report.pdf', contentType: 'application/pdf', size: sent.json.bytes }])
+      expect(mail!.attachments).toEqual([{
+        filename: 'Report-check-drill-after-action-report.pdf',
+        contentType: 'application/pdf',
+        size: sent.json.bytes,
+      }])
       expect(mail!.attachments[0]!.size).toBeGreaterThan(20_000)
     }
   })

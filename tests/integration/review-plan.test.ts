@@ -1,13 +1,25 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { Client, mailTo } from './helpers'
-import { closeSockets, newLiveExercise, type LiveCast } from './live-helpers'
+import { Client, mailTo } from '../support/client'
+import { closeSockets, newLiveExercise, type LiveCast } from '../support/live'
 
 let d: LiveCast
 const url = (p = '') => `/api/exercises/${d.id}${p}`
 const issuePaths = (res: { json: { data?: { issues?: Array<{ path: string }> } } }) => (res.json.data?.issues ?? []).map(i => i.path).sort()
 
-const strength = { kind: 'strength', objectiveKey: 'shared-picture', capability: 'Operational Coordination', title: 'Same-day notification', detail: 'The science cell told the Directorate within hours.' }
-const area = { kind: 'improvement', objectiveKey: 'public-warning', capability: 'Public Information and Warning', title: 'Holding statement came late', detail: 'No pre-cleared template existed.' }
+const strength = {
+  kind: 'strength',
+  objectiveKey: 'shared-picture',
+  capability: 'Operational Coordination',
+  title: 'Same-day notification',
+  detail: 'The science cell told the Directorate within hours.',
+}
+const area = {
+  kind: 'improvement',
+  objectiveKey: 'public-warning',
+  capability: 'Public Information and Warning',
+  title: 'Holding statement came late',
+  detail: 'No pre-cleared template existed.',
+}
 const item = {
   objectiveKey: 'public-warning', capability: 'Public Information and Warning', action: 'Write and pre-clear a holding-statement template for impact threats',
   element: 'planning', owner: 'Joint Information Centre lead', startDate: '2031-10-01', dueDate: '2031-12-15',
@@ -80,7 +92,10 @@ describe('the improvement plan', () => {
   })
 
   it('refuses bad items with field issues, and players and evaluators', async () => {
-    const bad = await d.analyst.client.post(url('/improvements'), { ...item, element: 'luck', startDate: '2031-02-30', dueDate: 'soon', owner: ' ', status: 'maybe' })
+    const bad = await d.analyst.client.post(
+      url('/improvements'),
+      { ...item, element: 'luck', startDate: '2031-02-30', dueDate: 'soon', owner: ' ', status: 'maybe' },
+    )
     expect(bad.status).toBe(400)
     expect(issuePaths(bad)).toEqual(['dueDate', 'element', 'owner', 'startDate', 'status'])
     const order = await d.analyst.client.post(url('/improvements'), { ...item, startDate: '2032-01-01', dueDate: '2031-12-01' })
@@ -118,7 +133,11 @@ describe('hotwash notes', () => {
 })
 
 describe('participant feedback', () => {
-  const answers = { ratings: { objectives: 4, realism: 5, figures: 3, coordination: 2, pace: 4 }, wentWell: 'The figures came with plain odds.', toImprove: 'Tell comms sooner.' }
+  const answers = {
+    ratings: { objectives: 4, realism: 5, figures: 3, coordination: 2, pace: 4 },
+    wentWell: 'The figures came with plain odds.',
+    toImprove: 'Tell comms sooner.',
+  }
 
   it('is asked for by e-mail once the drill has ended, with a link to the form', async () => {
     expect((await d.analyst.client.post(url('/feedback/request'), {})).status).toBe(409)
@@ -150,8 +169,17 @@ describe('participant feedback', () => {
     const review = (await d.analyst.client.get(url('/feedback'))).json
     expect(review.summary.responses).toBe(1)
     expect(review.summary.invited).toBe(5)
-    expect(review.summary.questions.find((q: { key: string }) => q.key === 'coordination')).toMatchObject({ n: 1, mean: 2, counts: [0, 1, 0, 0, 0] })
-    expect(review.summary.comments).toEqual([expect.objectContaining({ role: 'player', teamKey: 'science', wentWell: answers.wentWell, toImprove: answers.toImprove })])
+    expect(review.summary.questions.find((q: { key: string }) => q.key === 'coordination')).toMatchObject({
+      n: 1,
+      mean: 2,
+      counts: [0, 1, 0, 0, 0],
+    })
+    expect(review.summary.comments).toEqual([expect.objectContaining({
+      role: 'player',
+      teamKey: 'science',
+      wentWell: answers.wentWell,
+      toImprove: answers.toImprove,
+    })])
     expect(JSON.stringify(review.summary)).not.toContain('science member')
     expect(review.members.find((m: { userId: string }) => m.userId === d.science.id)).toMatchObject({ answered: true })
     expect(review.members.find((m: { userId: string }) => m.userId === d.civil.id)).toMatchObject({ answered: false })

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { parse } from 'yaml'
-import { as, Client, type DemoKey } from './helpers'
+import { as, Client, type DemoKey } from '../support/client'
 
 const root = resolve(import.meta.dirname, '../..')
 let library: Array<{ id: string; key: string; title: string }> = []
@@ -204,13 +204,25 @@ describe('attachments', () => {
     expect(up.status).toBe(201)
     expect(up.json).toMatchObject({ path: 'attachments/attachment-check/chart.png', contentType: 'image/png', size: PNG.length })
 
-    const disguised = await fac.request('POST', `/api/scenarios/${created.id}/attachments`, fileForm('<script>alert(1)</script>', 'evil.png', 'image/png'))
+    const disguised = await fac.request(
+      'POST',
+      `/api/scenarios/${created.id}/attachments`,
+      fileForm('<script>alert(1)</script>', 'evil.png', 'image/png'),
+    )
     expect(disguised.status).toBe(415)
     const html = await fac.request('POST', `/api/scenarios/${created.id}/attachments`, fileForm('<html></html>', 'page.html', 'text/html'))
     expect(html.status).toBe(415)
-    const huge = await fac.request('POST', `/api/scenarios/${created.id}/attachments`, fileForm(new Uint8Array(5 * 1024 * 1024 + 1), 'big.pdf', 'application/pdf'))
+    const huge = await fac.request(
+      'POST',
+      `/api/scenarios/${created.id}/attachments`,
+      fileForm(new Uint8Array(5 * 1024 * 1024 + 1), 'big.pdf', 'application/pdf'),
+    )
     expect(huge.status).toBe(413)
-    const note = await fac.request('POST', `/api/scenarios/${created.id}/attachments`, fileForm('# Notes\nPlain text.', '../../etc/notes.md', 'text/html'))
+    const note = await fac.request(
+      'POST',
+      `/api/scenarios/${created.id}/attachments`,
+      fileForm('# Notes\nPlain text.', '../../etc/notes.md', 'text/html'),
+    )
     expect(note.status).toBe(201)
     expect(note.json.path).toBe('attachments/attachment-check/notes.md')
     expect(note.json.contentType).toBe('text/markdown')
@@ -286,7 +298,10 @@ describe('starting an exercise', () => {
     expect((await civil.get(`/api/exercises/${id}`)).json.membership).toMatchObject({ role: 'player', teamKey: teams[1] })
     expect((await civil.post(`/api/exercises/${id}/members`, { email: 'comms@brinkwater.test', role: 'evaluator' })).status).toBe(403)
     expect((await civil.get(`/api/exercises/${id}`)).json.members[0].email).toBeUndefined()
-    expect((await (await as('comms')).post(`/api/exercises/${id}/members`, { email: 'comms@brinkwater.test', role: 'evaluator' })).status).toBe(404)
+    expect((await (await as('comms')).post(
+      `/api/exercises/${id}/members`,
+      { email: 'comms@brinkwater.test', role: 'evaluator' },
+    )).status).toBe(404)
 
     const changed = await fac.patch(`/api/exercises/${id}/members/${added.json.userId}`, { role: 'evaluator' })
     expect(changed.status).toBe(200)

@@ -7,8 +7,16 @@ export default defineEventHandler(async (event) => {
   const input = await readValid(event, inviteSchema)
   const db = useDB()
   const existing = db.select().from(schema.users).where(eq(schema.users.email, input.email)).get()
-  if (existing?.passwordHash) throw createError({ statusCode: 409, message: 'This person already has an account.', data: { issues: [{ path: 'email', message: 'Already has an account.' }] } })
-  const user = existing ?? db.insert(schema.users).values({ email: input.email, name: input.name, systemRole: input.systemRole }).returning().get()
+  if (existing?.passwordHash) throw createError({
+    statusCode: 409,
+    message: 'This person already has an account.',
+    data: { issues: [{ path: 'email', message: 'Already has an account.' }] },
+  })
+  const user = existing ?? db.insert(schema.users).values({
+    email: input.email,
+    name: input.name,
+    systemRole: input.systemRole,
+  }).returning().get()
   const token = issueAccountToken(user.id, 'invite')
   await sendMail({
     to: user.email,

@@ -8,17 +8,32 @@ export default defineEventHandler(async (event) => {
   const { scenario, ...exercise } = getExercise(id)
   const canManage = hasCapability(standing, 'members.manage')
   const members = useDB().select({
-    userId: schema.users.id, name: schema.users.name, email: schema.users.email, role: schema.memberships.role, teamKey: schema.memberships.teamKey,
+    userId: schema.users.id, name: schema.users.name, email: schema.users.email,
+    role: schema.memberships.role, teamKey: schema.memberships.teamKey,
   }).from(schema.memberships).innerJoin(schema.users, eq(schema.users.id, schema.memberships.userId))
     .where(eq(schema.memberships.exerciseId, id)).orderBy(schema.users.name).all()
     .map(m => (canManage ? m : { ...m, email: undefined }))
   const attachments = canManage
-    ? useDB().select({ id: schema.exerciseAttachments.id, path: schema.exerciseAttachments.path, name: schema.exerciseAttachments.name, contentType: schema.exerciseAttachments.contentType, size: schema.exerciseAttachments.size })
+    ? useDB().select({
+        id: schema.exerciseAttachments.id,
+        path: schema.exerciseAttachments.path,
+        name: schema.exerciseAttachments.name,
+        contentType: schema.exerciseAttachments.contentType,
+        size: schema.exerciseAttachments.size,
+      })
         .from(schema.exerciseAttachments).where(eq(schema.exerciseAttachments.exerciseId, id)).all()
     : []
   return {
     exercise, attachments,
-    scenario: scenario ? { key: scenario.key, title: scenario.title, summary: scenario.summary, teams: scenario.teams, clock: scenario.clock } : null,
+    scenario: scenario
+      ? {
+          key: scenario.key,
+          title: scenario.title,
+          summary: scenario.summary,
+          teams: scenario.teams,
+          clock: scenario.clock,
+        }
+      : null,
     membership, members, canManage, can: capabilityFlags(standing), viewer: sessionUser(user),
   }
 })

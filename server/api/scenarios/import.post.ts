@@ -9,7 +9,13 @@ export default defineEventHandler(async (event) => {
   const file = await readUpload(event, MAX_SCENARIO_BYTES, 'scenario file')
   let text: string
   try { text = new TextDecoder('utf-8', { fatal: true }).decode(file.data) }
-  catch { throw createError({ statusCode: 400, message: 'The file is not UTF-8 text.', data: { issues: [{ path: '', message: 'not UTF-8 text', line: 1, column: 1 }] } }) }
+  catch {
+    throw createError({
+      statusCode: 400,
+      message: 'The file is not UTF-8 text.',
+      data: { issues: [{ path: '', message: 'not UTF-8 text', line: 1, column: 1 }] },
+    })
+  }
   const row = importScenario(text, onConflict, user)
   setResponseStatus(event, 201)
   return summarise(row)

@@ -8,7 +8,10 @@ import { NARROW, WIDE } from './fixtures'
 const CASES = [
   { name: 'the Atlantic-wide band of solution 1 (700 km)', c: WIDE },
   { name: 'the 2 km band of solution 7', c: NARROW },
-  { name: 'a 55 km band (solution 4)', c: { path: [[-16.19, 37.64], [-10.74, 39.57], [-5, 41.24]] as Array<[number, number]>, halfWidthKm: 55 } },
+  {
+    name: 'a 55 km band (solution 4)',
+    c: { path: [[-16.19, 37.64], [-10.74, 39.57], [-5, 41.24]] as Array<[number, number]>, halfWidthKm: 55 },
+  },
 ]
 
 describe('spherical helpers (great-circle formulas, common practice)', () => {

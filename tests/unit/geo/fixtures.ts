@@ -6,7 +6,17 @@ import type { SceneSite } from '../../../shared/geo'
 
 /** Solution 1 of the demo: a band across the Atlantic, 700 km half-width. */
 export const WIDE = {
-  path: [[-59.47, 7.75], [-51.99, 14.71], [-44.02, 21.42], [-35.3, 27.72], [-25.57, 33.41], [-14.59, 38.24], [-2.26, 41.92], [11.26, 44.13], [25.42, 44.67]] as LonLat[],
+  path: [
+    [-59.47, 7.75],
+    [-51.99, 14.71],
+    [-44.02, 21.42],
+    [-35.3, 27.72],
+    [-25.57, 33.41],
+    [-14.59, 38.24],
+    [-2.26, 41.92],
+    [11.26, 44.13],
+    [25.42, 44.67],
+  ] as LonLat[],
   halfWidthKm: 700,
   nominal: [-25.573, 33.409] as LonLat,
   alongTrackSigmaKm: 2500,

@@ -10,7 +10,16 @@ import { NARROW, SITES, WIDE, surfaceAssessment } from './fixtures'
 describe('renderMapSvg', () => {
   const a = surfaceAssessment()
   const { basis, rings } = blastRings(a)
-  const options = { width: 900, height: 600, view: 'regional' as const, corridors: [WIDE, NARROW], impactPoints: a.impactPoints, sites: SITES, rings, ringBasis: basis }
+  const options = {
+    width: 900,
+    height: 600,
+    view: 'regional' as const,
+    corridors: [WIDE, NARROW],
+    impactPoints: a.impactPoints,
+    sites: SITES,
+    rings,
+    ringBasis: basis,
+  }
 
   it('draws the current and earlier corridors as paths, the marking and the sites by name', async () => {
     const svg = renderMapSvg({ ...options, atlas: await loadAtlas('50m') })

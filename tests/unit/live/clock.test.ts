@@ -10,7 +10,12 @@ const bounds = clockBounds(plan)
 const T0 = Date.parse('2026-12-01T10:00:00Z')
 const H = 3_600_000
 
-const running = (scenario: string, factor = 100): ClockState => ({ wallAnchor: T0, scenarioAnchor: Date.parse(scenario), factor, paused: false })
+const running = (scenario: string, factor = 100): ClockState => ({
+  wallAnchor: T0,
+  scenarioAnchor: Date.parse(scenario),
+  factor,
+  paused: false,
+})
 
 function apply(state: ClockState, status: ExerciseStatus, action: ClockAction, now = T0) {
   const r = applyClockAction(state, status, action, now, bounds)
@@ -64,7 +69,12 @@ describe('default factor', () => {
   it('is clamped to real time and to the maximum', () => {
     expect(clampFactor(0.2)).toBe(1)
     expect(clampFactor(1e12)).toBe(MAX_FACTOR)
-    expect(defaultFactor({ scenarioStart: '2031-01-01T00:00:00Z', impactTime: '2031-01-01T00:05:00Z', plannedWallMinutes: 600, aftermathDays: 0 })).toBe(1)
+    expect(defaultFactor({
+      scenarioStart: '2031-01-01T00:00:00Z',
+      impactTime: '2031-01-01T00:05:00Z',
+      plannedWallMinutes: 600,
+      aftermathDays: 0,
+    })).toBe(1)
   })
 
   it('starts paused at the scenario start', () => {
@@ -109,8 +119,20 @@ describe('clock actions', () => {
     expect(r.from).toBe(Date.parse('2031-04-01T01:00:00Z'))
     expect(scenarioTimeAt(r.state, T0 + 1000)).toBe(to)
     expect(scenarioTimeAt(r.state, T0 + 2000)).toBe(to + H)
-    expect(applyClockAction(c, 'running', { action: 'jump', to: Date.parse('2031-03-20T00:00:00Z') }, T0, bounds)).toMatchObject({ ok: false, code: 409, path: 'to' })
-    expect(applyClockAction(c, 'running', { action: 'jump', to: bounds.end + 1 }, T0, bounds)).toMatchObject({ ok: false, code: 400, path: 'to' })
+    expect(applyClockAction(
+      c,
+      'running',
+      { action: 'jump', to: Date.parse('2031-03-20T00:00:00Z') },
+      T0,
+      bounds,
+    )).toMatchObject({ ok: false, code: 409, path: 'to' })
+    expect(applyClockAction(
+      c,
+      'running',
+      { action: 'jump', to: bounds.end + 1 },
+      T0,
+      bounds,
+    )).toMatchObject({ ok: false, code: 400, path: 'to' })
   })
 
   it('end: stops the clock for good', () => {

@@ -80,15 +80,39 @@ describe('sanitising', () => {
   })
 
   it('stamps times as ISO strings', () => {
-    expect(sanitise(e, control)).toMatchObject({ seq: 3, type: 'inject.released', wallTime: new Date(3000).toISOString(), scenarioTime: new Date(6000).toISOString() })
+    expect(sanitise(e, control)).toMatchObject({
+      seq: 3,
+      type: 'inject.released',
+      wallTime: new Date(3000).toISOString(),
+      scenarioTime: new Date(6000).toISOString(),
+    })
   })
 })
 
 describe('folding a feed', () => {
   it('keeps the current body and every revision, attaches responses, ignores duplicates', () => {
-    const rel = sanitise(stored(1, 'inject.released', 'teams:science', { ...inject('a', ['science']), body: 'p = 1 %', solutionKey: 's1' }), science)!
-    const rev = sanitise(stored(5, 'inject.revised', 'teams:science', { key: 'a', teams: ['science'], revision: 1, body: 'p = 9 %', solutionKey: 's2', previousSolutionKey: 's1', drill: DRILL }), science)!
-    const resp = sanitise(stored(7, 'response.submitted', 'teams:science', { id: 'r', injectKey: 'a', teamKey: 'science', choice: 'A', text: '', late: false, by: { id: 'u', name: 'U' } }), science)!
+    const rel = sanitise(
+      stored(1, 'inject.released', 'teams:science', { ...inject('a', ['science']), body: 'p = 1 %', solutionKey: 's1' }),
+      science,
+    )!
+    const rev = sanitise(
+      stored(
+        5,
+        'inject.revised',
+        'teams:science',
+        { key: 'a', teams: ['science'], revision: 1, body: 'p = 9 %', solutionKey: 's2', previousSolutionKey: 's1', drill: DRILL },
+      ),
+      science,
+    )!
+    const resp = sanitise(
+      stored(
+        7,
+        'response.submitted',
+        'teams:science',
+        { id: 'r', injectKey: 'a', teamKey: 'science', choice: 'A', text: '', late: false, by: { id: 'u', name: 'U' } },
+      ),
+      science,
+    )!
     const feed = foldEvents([resp, rev, rel, rev])
     expect(feed.lastSeq).toBe(7)
     expect(feed.injects).toHaveLength(1)

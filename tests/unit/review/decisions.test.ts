@@ -20,7 +20,15 @@ describe('decision response times', () => {
     expect(rows[0]!.allowedMin).toBe(600)
     expect(rows[0]!.shareOfAllowed).toBeCloseTo(0.2)
     expect(byTeam.map(g => g.key)).toEqual(['science', 'civil'])
-    expect(byPhase).toEqual([expect.objectContaining({ key: 'detection', decisions: 2, answered: 2, onTime: 1, late: 1, medianMin: 510, medianWallMin: 6 })])
+    expect(byPhase).toEqual([expect.objectContaining({
+      key: 'detection',
+      decisions: 2,
+      answered: 2,
+      onTime: 1,
+      late: 1,
+      medianMin: 510,
+      medianWallMin: 6,
+    })])
   })
 
   it.each([

@@ -22,8 +22,14 @@ describe('the feedback summary', () => {
 describe('timeline facets', () => {
   it('names the teams an event concerns and its phase', () => {
     resetSeq()
-    expect(eventFacets(ev('inject.released', 0, inject('ask', ['science'], 'detection')), scenario)).toMatchObject({ teamKeys: ['science'], phaseKey: 'detection' })
-    expect(eventFacets(ev('response.submitted', 60 * 24 * 2, response('warn-now', 'civil')), scenario)).toMatchObject({ teamKeys: ['civil'], phaseKey: 'warning' })
+    expect(eventFacets(
+      ev('inject.released', 0, inject('ask', ['science'], 'detection')),
+      scenario,
+    )).toMatchObject({ teamKeys: ['science'], phaseKey: 'detection' })
+    expect(eventFacets(
+      ev('response.submitted', 60 * 24 * 2, response('warn-now', 'civil')),
+      scenario,
+    )).toMatchObject({ teamKeys: ['civil'], phaseKey: 'warning' })
     expect(eventFacets(ev('clock.changed', 0, { action: 'start' }), scenario)).toMatchObject({ teamKeys: [], phaseKey: 'detection' })
   })
 })
@@ -40,7 +46,15 @@ describe('text for the PDF fonts', () => {
 })
 
 describe('improvement plan bodies', () => {
-  const item = { objectiveKey: 'warn', capability: 'Public Information and Warning', action: 'Template', element: 'planning', owner: 'JIC', startDate: '2031-10-01', dueDate: '2031-12-15' }
+  const item = {
+    objectiveKey: 'warn',
+    capability: 'Public Information and Warning',
+    action: 'Template',
+    element: 'planning',
+    owner: 'JIC',
+    startDate: '2031-10-01',
+    dueDate: '2031-12-15',
+  }
 
   it('default to open and refuse a due date before the start', () => {
     expect(improvementSchema.parse(item).status).toBe('open')

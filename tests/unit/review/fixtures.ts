@@ -14,9 +14,21 @@ export const scenario = {
     { key: 'warn', title: 'Warn the public', description: 'd', capabilities: ['Public Information and Warning'] },
   ],
   criteria: [
-    { key: 'figures', objective: 'picture', capability: 'Situational Assessment', tasks: [{ key: 't1', text: 'Task one' }, { key: 't2', text: 'Task two' }], injects: ['ask'] },
+    {
+      key: 'figures',
+      objective: 'picture',
+      capability: 'Situational Assessment',
+      tasks: [{ key: 't1', text: 'Task one' }, { key: 't2', text: 'Task two' }],
+      injects: ['ask'],
+    },
     { key: 'coord', objective: 'picture', capability: 'Operational Coordination', tasks: [{ key: 't3', text: 'Task three' }], injects: [] },
-    { key: 'statement', objective: 'warn', capability: 'Public Information and Warning', tasks: [{ key: 't4', text: 'Task four' }], injects: ['warn-now'] },
+    {
+      key: 'statement',
+      objective: 'warn',
+      capability: 'Public Information and Warning',
+      tasks: [{ key: 't4', text: 'Task four' }],
+      injects: ['warn-now'],
+    },
   ],
   injects: [
     { key: 'ask', at: '2031-03-04T00:00:00Z', phase: 'detection' },
@@ -30,7 +42,15 @@ export function resetSeq() { seq = 0 }
 /** An event `min` scenario minutes and `wallMin` wall minutes after the start. */
 export function ev(type: LiveEventType, min: number, data: unknown, audience: Audience = 'all', wallMin = min / 100): StoredEvent {
   seq += 1
-  return { seq, type, wallTime: W0 + wallMin * MIN, scenarioTime: T0 + min * MIN, actorId: null, audience, data: data as StoredEvent['data'] }
+  return {
+    seq,
+    type,
+    wallTime: W0 + wallMin * MIN,
+    scenarioTime: T0 + min * MIN,
+    actorId: null,
+    audience,
+    data: data as StoredEvent['data'],
+  }
 }
 
 export const person = (id: string) => ({ id, name: id.toUpperCase() })
@@ -39,7 +59,14 @@ export function inject(key: string, teams: string[], phase: string, deadlineMin?
   return {
     key, adhoc: false, title: `Inject ${key}`, kind: 'decision-request', phase, teams, at: new Date(T0).toISOString(), body: 'Body',
     solutionKey: null, revision: 0, manual: true, wasHeld: false, drill: { marking: 'M', caution: 'C' },
-    ...(deadlineMin === undefined ? {} : { decision: { prompt: 'Decide', choices: ['Yes', 'No'], freeText: true, deadline: new Date(T0 + deadlineMin * MIN).toISOString() } }),
+    ...(deadlineMin === undefined
+      ? {}
+      : { decision: {
+          prompt: 'Decide',
+          choices: ['Yes', 'No'],
+          freeText: true,
+          deadline: new Date(T0 + deadlineMin * MIN).toISOString(),
+        } }),
     ...extra,
   }
 }

@@ -11,7 +11,12 @@ function record() {
     ev('inject.released', 20, inject('ask', ['science'], 'detection', 600, { expectedActions: ['Do it'] }), 'teams:science'),
     ev('inject.released', 30, inject('warn-now', ['civil'], 'warning', 900), 'teams:civil'),
     ev('response.submitted', 40, response('ask', 'science'), 'teams:science'),
-    ev('score.recorded', 50, { id: 'x', criterionKey: 'figures', taskKey: 't1', rating: 'P', note: '', by: { id: 'a', name: 'A' } }, 'evaluators'),
+    ev(
+      'score.recorded',
+      50,
+      { id: 'x', criterionKey: 'figures', taskKey: 't1', rating: 'P', note: '', by: { id: 'a', name: 'A' } },
+      'evaluators',
+    ),
     ev('solution.published', 60, { key: 's2', label: 'Solution 2', headline: { impactProbability: 0.5 } }),
   ]
 }

@@ -32,7 +32,10 @@ describe('the scoring summary', () => {
     const pairs: Array<[string, string, 'P' | 'S' | 'M' | 'U', 'P' | 'S' | 'M' | 'U']> = [
       ['figures', 't1', 'P', 'P'], ['figures', 't2', 'S', 'M'], ['coord', 't3', 'M', 'M'], ['statement', 't4', 'U', 'S'],
     ]
-    const events = pairs.flatMap(([c, t, a, b], i) => [ev('score.recorded', i, score('a', c, t, a), 'evaluators'), ev('score.recorded', i, score('b', c, t, b), 'evaluators')])
+    const events = pairs.flatMap(([c, t, a, b], i) => [
+      ev('score.recorded', i, score('a', c, t, a), 'evaluators'),
+      ev('score.recorded', i, score('b', c, t, b), 'evaluators'),
+    ])
     const s = scoringSummary(events, scenario)
     expect(s.disagreements.map(d => [d.taskKey, d.ratings.map(r => r.rating).join('')])).toEqual([['t2', 'SM'], ['t4', 'US']])
     // p_o = 2/4; A = P S M U, B = P M M S → p_e = (1·1 + 1·1 + 1·2 + 1·0)/16 = 1/4; kappa = (1/2 − 1/4)/(3/4) = 1/3.

@@ -113,7 +113,10 @@ describe('validateHazardFields', () => {
   })
 
   it('accepts valid fields, units and escaped braces', () => {
-    expect(validateHazardFields('{{ energyMt }} {{ site.port-a.runUpM.p95 | km }} {{ impactProbability | odds }} \\{{ x }}', sites)).toEqual([])
+    expect(validateHazardFields(
+      '{{ energyMt }} {{ site.port-a.runUpM.p95 | km }} {{ impactProbability | odds }} \\{{ x }}',
+      sites,
+    )).toEqual([])
   })
 
   it('positions each issue in the text', () => {
@@ -175,7 +178,10 @@ describe('number formatting', () => {
   })
 
   it('renders sites of a multi-site assessment by id', () => {
-    const two = assessmentFixture([siteFixture('port-a', 'Port A', 1), siteFixture('port-b', 'Port B', 2, { runUpM: { p5: 5, p50: 7, p95: 9 } })])
+    const two = assessmentFixture([
+      siteFixture('port-a', 'Port A', 1),
+      siteFixture('port-b', 'Port B', 2, { runUpM: { p5: 5, p50: 7, p95: 9 } }),
+    ])
     expect(renderHazardFields('{{ site.port-a.runUpM.p50 }} / {{ site.port-b.runUpM.p50 }}', two)).toBe('2.6 m / 7 m')
   })
 })

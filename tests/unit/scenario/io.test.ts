@@ -116,7 +116,12 @@ describe('parseScenarioYaml', () => {
     const s = structuredClone(parseMini())
     const first = s.solutions[0]
     if (!first) throw new Error('fixture')
-    s.solutions.push({ ...structuredClone(first), key: 's0', releaseAt: '2031-01-01T12:00:00Z', solution: { ...first.solution, epoch: '2031-01-01T12:00:00Z' } })
+    s.solutions.push({
+      ...structuredClone(first),
+      key: 's0',
+      releaseAt: '2031-01-01T12:00:00Z',
+      solution: { ...first.solution, epoch: '2031-01-01T12:00:00Z' },
+    })
     const result = parseScenarioYaml(stringifyScenario(s))
     if (result.ok) throw new Error('expected errors')
     expect(result.errors.map(e => `${e.path}: ${e.message}`)).toEqual([
@@ -128,7 +133,11 @@ describe('parseScenarioYaml', () => {
     const text = mutate('    kind: briefing', '\tkind: briefing')
     const result = parseScenarioYaml(text)
     if (result.ok) throw new Error('expected errors')
-    expect(result.errors[0]).toEqual({ path: '', message: 'YAML syntax error: Tabs are not allowed as indentation', ...positionOf(text, '\tkind') })
+    expect(result.errors[0]).toEqual({
+      path: '',
+      message: 'YAML syntax error: Tabs are not allowed as indentation',
+      ...positionOf(text, '\tkind'),
+    })
   })
 
   it('rejects duplicate keys in a YAML mapping', () => {
@@ -155,7 +164,12 @@ describe('parseScenarioYaml', () => {
     const result = parseScenarioYaml(`# ${'x'.repeat(MAX_SCENARIO_BYTES)}`)
     expect(result).toEqual({
       ok: false,
-      errors: [{ path: '', message: `scenario file too large: ${MAX_SCENARIO_BYTES + 2} bytes (limit ${MAX_SCENARIO_BYTES})`, line: 1, column: 1 }],
+      errors: [{
+        path: '',
+        message: `scenario file too large: ${MAX_SCENARIO_BYTES + 2} bytes (limit ${MAX_SCENARIO_BYTES})`,
+        line: 1,
+        column: 1,
+      }],
     })
   })
 
@@ -205,16 +219,31 @@ describe('cross-reference checks', () => {
   // Each case edits a copy of the minimal scenario and names the single error it must cause.
   const cases: Array<[string, (s: Scenario) => void, string]> = [
     ['an inject presenting an unknown solution', (s) => { s.injects[0]!.solution = 's9' }, 'injects[0].solution: unknown solution "s9"'],
-    ['an inject presenting a solution released after it', (s) => { s.injects[0]!.at = '2031-01-01T06:00:00Z'; s.injects[0]!.body = 'No fields.'; s.injects[0]!.solution = 's1' },
-      'injects[0].solution: solution "s1" is released at 2031-01-02T00:00:00Z, after this inject (2031-01-01T06:00:00Z)'],
+    ['an inject presenting a solution released after it', (s) => {
+      s.injects[0]!.at = '2031-01-01T06:00:00Z'
+      s.injects[0]!.body = 'No fields.'
+      s.injects[0]!.solution = 's1'
+    },
+    'injects[0].solution: solution "s1" is released at 2031-01-02T00:00:00Z, after this inject (2031-01-01T06:00:00Z)'],
     ['hazard fields before the first solution', (s) => { s.injects[0]!.at = '2031-01-01T06:00:00Z' },
       'injects[0].body: hazard field "impactProbability" before any orbit solution is released (the first is released at 2031-01-02T00:00:00Z)'],
     ['a solution released before its epoch', (s) => { s.solutions[0]!.solution.epoch = '2031-01-02T01:00:00Z' },
       'solutions[0].solution.epoch: epoch 2031-01-02T01:00:00Z is after the release time 2031-01-02T00:00:00Z'],
-    ['a criterion on an unknown objective', (s) => { s.criteria[0]!.objective = 'calm' }, 'criteria[0].objective: unknown objective "calm"'],
-    ['a team named twice on one inject', (s) => { s.injects[1]!.teams = ['comms', 'comms'] }, 'injects[1].teams[1]: duplicate team "comms" (first at index 0)'],
-    ['a decision with neither choices nor free text', (s) => { delete s.injects[1]!.decision!.choices; s.injects[1]!.decision!.freeText = false },
-      'injects[1].decision: a decision needs choices, free text, or both'],
+    [
+      'a criterion on an unknown objective',
+      (s) => { s.criteria[0]!.objective = 'calm' },
+      'criteria[0].objective: unknown objective "calm"',
+    ],
+    [
+      'a team named twice on one inject',
+      (s) => { s.injects[1]!.teams = ['comms', 'comms'] },
+      'injects[1].teams[1]: duplicate team "comms" (first at index 0)',
+    ],
+    ['a decision with neither choices nor free text', (s) => {
+      delete s.injects[1]!.decision!.choices
+      s.injects[1]!.decision!.freeText = false
+    },
+    'injects[1].decision: a decision needs choices, free text, or both'],
     ['an impact before the start', (s) => { s.clock.impactTime = '2030-12-31T00:00:00Z' },
       'clock.impactTime: impact time 2030-12-31T00:00:00Z must be after the scenario start 2031-01-01T00:00:00Z'],
     ['a duplicate site id', (s) => { s.sites.push({ ...s.sites[0]! }) }, 'sites[1].id: duplicate site id "port-a" (first at index 0)'],

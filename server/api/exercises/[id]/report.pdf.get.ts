@@ -1,4 +1,4 @@
-import { downloadHeaders, fileStem } from '~~/server/review'
+import { downloadHeaders, fileStem, reportData, reportPdf } from '~~/server/review'
 
 // The after-action report as PDF (analyst and facilitator; admins look in).
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
 import { reportSendSchema } from '#shared/schemas/review'
+import { sendReport } from '~~/server/review'
 
 // Sends the after-action report (PDF attached) to chosen members of the exercise.
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,14 @@
 import { and, eq } from 'drizzle-orm'
 import { idParamSchema } from '#shared/schemas/auth'
-import { ALLOWED_ATTACHMENTS, getScenarioRow, MAX_ATTACHMENT_BYTES, putBlob, readUpload, safeFileName, sniffContentType } from '~~/server/library'
+import {
+  ALLOWED_ATTACHMENTS,
+  getScenarioRow,
+  MAX_ATTACHMENT_BYTES,
+  putBlob,
+  readUpload,
+  safeFileName,
+  sniffContentType,
+} from '~~/server/library'
 
 // Upload of an inject attachment (multipart, field "file"): type sniffed from the bytes, size-limited.
 export default defineEventHandler(async (event) => {
@@ -11,7 +19,11 @@ export default defineEventHandler(async (event) => {
   const name = safeFileName(file.filename)
   const contentType = sniffContentType(file.data, name)
   if (!contentType) {
-    throw createError({ statusCode: 415, message: `This type of file is not accepted. Attach a ${ALLOWED_ATTACHMENTS} file.`, data: { issues: [{ path: 'file', message: `not a ${ALLOWED_ATTACHMENTS} file` }] } })
+    throw createError({
+      statusCode: 415,
+      message: `This type of file is not accepted. Attach a ${ALLOWED_ATTACHMENTS} file.`,
+      data: { issues: [{ path: 'file', message: `not a ${ALLOWED_ATTACHMENTS} file` }] },
+    })
   }
   const sha256 = await putBlob(file.data)
   const path = `attachments/${row.key}/${name}`

@@ -8,10 +8,10 @@ import { createConnection } from 'node:net'
 import Database from 'better-sqlite3'
 import { io, type Socket } from 'socket.io-client'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { freePort } from './global-setup'
-import { DEMO } from './helpers'
-import { until } from './live-helpers'
-import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from './hardening-helpers'
+import { freePort } from '../support/ports'
+import { DEMO } from '../support/client'
+import { until } from '../support/live'
+import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from '../support/test-server'
 import type { Scenario } from '../../shared/scenario'
 
 interface Ev { seq: number; type: string; data: any } // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
@@ -26,7 +26,12 @@ const sockets: Socket[] = []
 
 function lease(file: string): { holder: string; expiresAt: number } | undefined {
   const db = new Database(file, { readonly: true })
-  try { return db.prepare('select holder, expires_at as expiresAt from scheduler_leases where name = ?').get('scheduler') as { holder: string; expiresAt: number } | undefined }
+  try {
+    return db.prepare('select holder, expires_at as expiresAt from scheduler_leases where name = ?').get('scheduler') as {
+      holder: string
+      expiresAt: number
+    } | undefined
+  }
   finally { db.close() }
 }
 function releases(file: string): string[] {
@@ -51,7 +56,17 @@ function writeLockFree(file: string): boolean {
 }
 
 function follow(server: TestServer, cookie: string) {
-  const s = io(server.base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie }, auth: { exerciseId, lastSeq: 0 } })
+  const s = io(
+    server.base,
+    {
+      path: '/socket.io/',
+      transports: ['websocket'],
+      forceNew: true,
+      reconnection: false,
+      extraHeaders: { cookie },
+      auth: { exerciseId, lastSeq: 0 },
+    },
+  )
   sockets.push(s)
   const seen: Array<Ev & { at: number }> = []
   s.on('event', (e: Ev) => seen.push({ ...e, at: Date.now() }))
@@ -60,7 +75,11 @@ function follow(server: TestServer, cookie: string) {
 
 beforeAll(async () => {
   const port = await freePort()
-  redis = spawn('/usr/bin/redis-server', ['--port', String(port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'no'], { stdio: 'ignore' })
+  redis = spawn(
+    '/usr/bin/redis-server',
+    ['--port', String(port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'no'],
+    { stdio: 'ignore' },
+  )
   await until(() => new Promise<boolean>((ok) => {
     const c = createConnection(port, '127.0.0.1', () => { c.end(); ok(true) })
     c.on('error', () => ok(false))
@@ -91,7 +110,10 @@ describe('two processes behind one address', () => {
     scenario = drillScenario((await demoScenario(facilitatorB)).document, 'cluster-drill', 16)
     const id = await importScenario(facilitatorB, scenario)
     exerciseId = (await facilitatorB.post(`/api/scenarios/${id}/exercises`, { title: 'Cluster drill' })).json.id
-    expect((await facilitatorB.post(`/api/exercises/${exerciseId}/members`, { email: DEMO.science, role: 'player', teamKey: 'science' })).status).toBe(201)
+    expect((await facilitatorB.post(
+      `/api/exercises/${exerciseId}/members`,
+      { email: DEMO.science, role: 'player', teamKey: 'science' },
+    )).status).toBe(201)
 
     const onA = follow(a, science.cookie)
     const onB = follow(b, science.cookie)
@@ -102,13 +124,20 @@ describe('two processes behind one address', () => {
     const sent = Date.now()
     const res = await facilitatorB.post(`/api/exercises/${exerciseId}/injects/${manual.key}/release`)
     expect(res.status).toBe(201)
-    const got = await until(() => onA.seen.find(e => e.type === 'inject.released' && e.data.key === manual.key), 5000, 'the release on process A')
+    const got = await until(
+      () => onA.seen.find(e => e.type === 'inject.released' && e.data.key === manual.key),
+      5000,
+      'the release on process A',
+    )
     expect(got.seq).toBe(res.json.event.seq)
 
     // The scheduler: one holder of the lease among the two processes.
     const scheduled = scenario.injects.filter(i => !i.contingency)
     const span = Math.max(...scheduled.map(i => Date.parse(i.at))) - Date.parse(scenario.clock.scenarioStart)
-    expect((await facilitatorB.post(`/api/exercises/${exerciseId}/clock`, { action: 'start', factor: Math.round(span / 15_000) })).status).toBe(200)
+    expect((await facilitatorB.post(
+      `/api/exercises/${exerciseId}/clock`,
+      { action: 'start', factor: Math.round(span / 15_000) },
+    )).status).toBe(200)
     await until(() => releases(a.dbPath).length >= 6, 15_000, 'the first scheduled releases')
     const first = lease(a.dbPath)!
     const pids = [a.pid, b.pid].map(String)
@@ -155,7 +184,17 @@ describe('two processes behind one address', () => {
       expect([...s.seen.map(e => e.seq)].sort((x, y) => x - y)).toEqual(record)
     }
     // A client that reconnects with the highest seq it saw is replayed the reorder window before it.
-    const resumed = io(b.base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie: science.cookie }, auth: { exerciseId, lastSeq: record.at(-1) } })
+    const resumed = io(
+      b.base,
+      {
+        path: '/socket.io/',
+        transports: ['websocket'],
+        forceNew: true,
+        reconnection: false,
+        extraHeaders: { cookie: science.cookie },
+        auth: { exerciseId, lastSeq: record.at(-1) },
+      },
+    )
     sockets.push(resumed)
     const replayed: number[] = []
     resumed.on('event', (e: Ev) => replayed.push(e.seq))
@@ -164,6 +203,6 @@ describe('two processes behind one address', () => {
     expect(replayed).toEqual(record.filter((q: number) => q >= replayed[0]!))
     for (const s of [a, b]) expect(s.log).not.toMatch(/SQLITE_BUSY|\[request error\]|\[scheduler\] exercise/)
     expect(holder.log + other.log).toMatch(/the scheduler lease went to another process/)
-    console.info(`[hardening-cluster] release through B → socket on A in ${got.at - sent} ms; holder pid ${holderPid} frozen, pid ${other.pid} took over after ${resumedAt - frozenAt} ms (lease ${LEASE_MS} ms); ${all.length} releases, none twice; events out of seq order on the sockets of A/B: ${late.join('/')}`)
+    console.info(`[several-processes] release through B → socket on A in ${got.at - sent} ms; holder pid ${holderPid} frozen, pid ${other.pid} took over after ${resumedAt - frozenAt} ms (lease ${LEASE_MS} ms); ${all.length} releases, none twice; events out of seq order on the sockets of A/B: ${late.join('/')}`)
   }, 120_000)
 })

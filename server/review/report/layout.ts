@@ -1,7 +1,7 @@
 import type { Content, ContentTable, DynamicContent, Node, NodeQueries, StyleDictionary, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
-import { pdfSafe } from '../../shared/review/pdftext'
-import { utcText } from '../../shared/review/format'
-import { DRILL_CAUTION, DRILL_MARKING } from '../../shared/utils/drill'
+import { pdfSafe } from '#shared/review/pdftext'
+import { utcText } from '#shared/review/format'
+import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
 
 /** The app's palette (tailwind.config.ts) for print. */
 export const PDF_INK = {

@@ -4,12 +4,12 @@
 // (some twice with the same key). Nothing is lost or delivered twice, no response is recorded twice,
 // and the live heap after a full GC stays bounded. Speeds are the bench's business, not asserted here.
 import { describe, expect, it } from 'vitest'
-import { formatLoadReport, runLoad } from '../../scripts/bench/load'
+import { formatLoadReport, runLoad } from '../support/load'
 
 describe('a drill under load', () => {
   it('delivers every event once to each of 60 members and records each answer once', async () => {
     const report = await runLoad({ sockets: 60, extraInjects: 16, wallSeconds: 15, retryShare: 0.1 })
-    console.info(`[hardening-load]\n${formatLoadReport(report)}`)
+    console.info(`[drill-under-load]\n${formatLoadReport(report)}`)
     expect(report.injects.scheduled).toBe(50)
     expect(report.errors).toEqual([])
     expect(report.lost).toBe(0)

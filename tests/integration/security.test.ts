@@ -5,8 +5,8 @@
 import { createHash } from 'node:crypto'
 import Database from 'better-sqlite3'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { Http, TestServer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { Http, TestServer } from '../support/test-server'
 
 const server = new TestServer()
 let admin: Http
@@ -140,7 +140,12 @@ describe('cross-site requests', () => {
   it('lets same-origin requests and safe methods through', async () => {
     const same = await admin.call('GET', '/api/admin/users', undefined, { 'origin': 'https://evil.example', 'sec-fetch-site': 'cross-site' })
     expect(same.status).toBe(200)
-    const ok = await admin.call('POST', '/api/auth/forgot', { email: 'nobody@example.test' }, { 'origin': server.base, 'sec-fetch-site': 'same-origin' })
+    const ok = await admin.call(
+      'POST',
+      '/api/auth/forgot',
+      { email: 'nobody@example.test' },
+      { 'origin': server.base, 'sec-fetch-site': 'same-origin' },
+    )
     expect(ok.status).toBe(202)
     const typed = await admin.call('POST', '/api/auth/forgot', { email: 'nobody@example.test' }, { 'sec-fetch-site': 'none' })
     expect(typed.status).toBe(202)
@@ -148,7 +153,12 @@ describe('cross-site requests', () => {
 
   it('a form a hostile page could post (text/plain, urlencoded) is refused even without Origin', async () => {
     for (const type of ['text/plain', 'application/x-www-form-urlencoded']) {
-      const res = await admin.call('POST', '/api/admin/invitations', JSON.stringify({ email: 'form@example.test', name: 'Form' }), { 'content-type': type })
+      const res = await admin.call(
+        'POST',
+        '/api/admin/invitations',
+        JSON.stringify({ email: 'form@example.test', name: 'Form' }),
+        { 'content-type': type },
+      )
       expect(res.status, type).toBe(415)
     }
   })
@@ -219,7 +229,10 @@ describe('the audit trail', () => {
     const actions = trail.json.map((e: { action: string }) => e.action)
     expect(actions).toContain('user.invite')
     expect(actions).toContain('admin.backup')
-    const invited = trail.json.find((e: { action: string; data: { email?: string } }) => e.action === 'user.invite' && e.data.email === 'audited@example.test')
+    const invited = trail.json.find((e: {
+      action: string
+      data: { email?: string }
+    }) => e.action === 'user.invite' && e.data.email === 'audited@example.test')
     expect(invited.actor.email).toBe(DEMO.admin)
     expect(Date.parse(trail.json[0].createdAt)).toBeGreaterThanOrEqual(Date.parse(trail.json.at(-1).createdAt))
     const filtered = await admin.get('/api/admin/audit?action=admin.backup')

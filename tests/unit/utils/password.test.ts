@@ -8,13 +8,20 @@ const COMMON = ['password', 'password1', 'password123', '1234567890', 'qwertyuio
 
 describe('the password policy', () => {
   it('accepts any password of 10 to 200 characters that is not a common one', () => {
-    fc.assert(fc.property(fc.string({ minLength: 10, maxLength: 200, unit: 'grapheme-ascii' }).filter(p => !COMMON.includes(p.toLowerCase())), (p) => {
+    fc.assert(fc.property(fc.string({
+      minLength: 10,
+      maxLength: 200,
+      unit: 'grapheme-ascii',
+    }).filter(p => !COMMON.includes(p.toLowerCase())), (p) => {
       expect(passwordSchema.safeParse(p).success).toBe(true)
     }), { numRuns: 500 })
   })
 
   it('refuses anything shorter than 10 or longer than 200 characters', () => {
-    fc.assert(fc.property(fc.oneof(fc.string({ maxLength: 9, unit: 'grapheme-ascii' }), fc.string({ minLength: 201, maxLength: 400, unit: 'grapheme-ascii' })), (p) => {
+    fc.assert(fc.property(fc.oneof(
+      fc.string({ maxLength: 9, unit: 'grapheme-ascii' }),
+      fc.string({ minLength: 201, maxLength: 400, unit: 'grapheme-ascii' }),
+    ), (p) => {
       expect(passwordSchema.safeParse(p).success).toBe(false)
     }), { numRuns: 300 })
   })
@@ -28,6 +35,13 @@ describe('the password policy', () => {
 
   it('compares e-mail addresses trimmed and lower-cased, and refuses what is not an address', () => {
     expect(emailSchema.parse('  Admin@Brinkwater.TEST ')).toBe('admin@brinkwater.test')
-    for (const bad of ['', 'admin', 'a@', '@b.test', 'a b@c.test', `${'a'.repeat(250)}@b.test`]) expect(emailSchema.safeParse(bad).success, bad).toBe(false)
+    for (const bad of [
+      '',
+      'admin',
+      'a@',
+      '@b.test',
+      'a b@c.test',
+      `${'a'.repeat(250)}@b.test`,
+    ]) expect(emailSchema.safeParse(bad).success, bad).toBe(false)
   })
 })

@@ -7,9 +7,9 @@
 import Database from 'better-sqlite3'
 import { io, type Socket } from 'socket.io-client'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { until } from './live-helpers'
-import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { until } from '../support/live'
+import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from '../support/test-server'
 import type { Scenario } from '../../shared/scenario'
 
 const KILLS = Number(process.env.HARDENING_KILLS) || 22
@@ -29,7 +29,14 @@ function rng(seed: number) {
 const random = rng(SEED)
 const between = (lo: number, hi: number) => lo + Math.floor(random() * (hi - lo))
 
-interface Ev { seq: number; type: string; wallTime: string; scenarioTime: string; actorId?: string | null; data: any } // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
+interface Ev {
+  seq: number
+  type: string
+  wallTime: string
+  scenarioTime: string
+  actorId?: string | null
+  data: any // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
+}
 
 const server = new TestServer({ env: { NUXT_SCHEDULER_INTERVAL_MS: '50' } })
 let facilitator: Http
@@ -58,7 +65,17 @@ class Follower {
   async connect() {
     this.close()
     const lastSeq = this.seen.at(-1) ?? 0
-    const s = io(server.base, { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: { cookie: science.cookie }, auth: { exerciseId, lastSeq } })
+    const s = io(
+      server.base,
+      {
+        path: '/socket.io/',
+        transports: ['websocket'],
+        forceNew: true,
+        reconnection: false,
+        extraHeaders: { cookie: science.cookie },
+        auth: { exerciseId, lastSeq },
+      },
+    )
     this.socket = s
     s.on('event', (e: Ev) => this.seen.push(e.seq))
     await new Promise<void>((ok, fail) => {
@@ -121,7 +138,7 @@ afterAll(async () => {
 
 describe('a drill under repeated SIGKILL', () => {
   it(`survives ${KILLS} kills at random moments with a whole record, the right clock, every due release once, and caught-up clients`, async () => {
-    console.info(`[hardening-faults] seed ${SEED} (HARDENING_SEED=${SEED} replays this run)`)
+    console.info(`[crash-recovery] seed ${SEED} (HARDENING_SEED=${SEED} replays this run)`)
     const scheduled = scenario.injects.filter(i => !i.contingency)
     const firstAt = Date.parse(scenario.clock.scenarioStart)
     const lastAt = Math.max(...scheduled.map(i => Date.parse(i.at)))
@@ -146,7 +163,9 @@ describe('a drill under repeated SIGKILL', () => {
       const traffic = (async () => {
         while (Date.now() < stopAt && server.running) {
           const released = keysOf(await record(science).catch(() => []), 'inject.released')
-          for (let n = between(1, 4); released.length && n > 0; n--) void responder.send(released[between(0, released.length)]!).catch((err: Error) => errors.push(err))
+          for (let n = between(1, 4); released.length && n > 0; n--) {
+            void responder.send(released[between(0, released.length)]!).catch((err: Error) => errors.push(err))
+          }
           await sleep(between(10, 80))
         }
       })()
@@ -246,6 +265,6 @@ describe('a drill under repeated SIGKILL', () => {
     expect(follower.seen).toEqual(visible)
 
     const sorted = [...startTimes].sort((a, b) => a - b)
-    console.info(`[hardening-faults] ${kills} SIGKILLs survived; ${final.length} events; ${responder.acked.size} responses (${responder.resent} re-sent after a kill, none doubled); ${clockActions} pause/resume pairs; ${follower.connections} socket connections; restart median ${sorted[sorted.length >> 1]} ms`)
+    console.info(`[crash-recovery] ${kills} SIGKILLs survived; ${final.length} events; ${responder.acked.size} responses (${responder.resent} re-sent after a kill, none doubled); ${clockActions} pause/resume pairs; ${follower.connections} socket connections; restart median ${sorted[sorted.length >> 1]} ms`)
   }, 240_000)
 })

@@ -7,8 +7,8 @@ import { readdirSync } from 'node:fs'
 import { join, relative, resolve } from 'node:path'
 import { io } from 'socket.io-client'
 import { beforeAll, afterAll, describe, expect, it } from 'vitest'
-import { as, baseUrl, Client } from './helpers'
-import { ikey, newPerson, until } from './live-helpers'
+import { as, baseUrl, Client } from '../support/client'
+import { ikey, newPerson, until } from '../support/live'
 import type { Scenario } from '../../shared/scenario'
 import { HOTWASH_KEYS } from '../../shared/review/plan'
 
@@ -74,51 +74,215 @@ const MATRIX: { routes: RouteRow[]; rooms: RoomRow[] } = {
     { route: 'GET me.get.ts', call: () => ({ path: '/api/me' }), expect: signedIn(200) },
     { route: 'GET exercises/index.get.ts', call: () => ({ path: '/api/exercises' }), expect: signedIn(200) },
     { route: 'GET exercises/[id].get.ts', call: c => ({ path: X(c) }), expect: inExercise(MEMBERS, 200, { admin: true }) },
-    { route: 'GET exercises/[id]/attachments/[attachmentId].get.ts', call: c => ({ path: `${X(c)}/attachments/${c.exerciseAttachment}` }), expect: inExercise(MEMBERS, 200, { admin: true }) },
-    { route: 'POST exercises/[id]/clock.post.ts', call: c => ({ path: `${X(c)}/clock`, body: INVALID }), expect: inExercise(['facilitator'], 400) },
-    { route: 'GET exercises/[id]/events.get.ts', call: c => ({ path: `${X(c)}/events` }), expect: inExercise(MEMBERS, 200, { admin: true }) },
+    {
+      route: 'GET exercises/[id]/attachments/[attachmentId].get.ts',
+      call: c => ({ path: `${X(c)}/attachments/${c.exerciseAttachment}` }),
+      expect: inExercise(MEMBERS, 200, { admin: true }),
+    },
+    {
+      route: 'POST exercises/[id]/clock.post.ts',
+      call: c => ({ path: `${X(c)}/clock`, body: INVALID }),
+      expect: inExercise(['facilitator'], 400),
+    },
+    {
+      route: 'GET exercises/[id]/events.get.ts',
+      call: c => ({ path: `${X(c)}/events` }),
+      expect: inExercise(MEMBERS, 200, { admin: true }),
+    },
     { route: 'GET exercises/[id]/live.get.ts', call: c => ({ path: `${X(c)}/live` }), expect: inExercise(MEMBERS, 200, { admin: true }) },
-    { route: 'POST exercises/[id]/injects/[key]/hold.post.ts', call: c => ({ path: `${X(c)}/injects/${c.released}/hold` }), expect: inExercise(['facilitator'], 409) },
-    { route: 'POST exercises/[id]/injects/[key]/release.post.ts', call: c => ({ path: `${X(c)}/injects/${c.released}/release` }), expect: inExercise(['facilitator'], 409) },
-    { route: 'POST exercises/[id]/solutions/[key]/publish.post.ts', call: c => ({ path: `${X(c)}/solutions/${c.published}/publish` }), expect: inExercise(['facilitator'], 409) },
-    { route: 'POST exercises/[id]/members/index.post.ts', call: c => ({ path: `${X(c)}/members`, body: INVALID }), expect: inExercise(['facilitator'], 400) },
-    { route: 'PATCH exercises/[id]/members/[userId].patch.ts', call: c => ({ path: `${X(c)}/members/${c.facilitatorId}`, body: INVALID }), expect: inExercise(['facilitator'], 400) },
+    {
+      route: 'POST exercises/[id]/injects/[key]/hold.post.ts',
+      call: c => ({ path: `${X(c)}/injects/${c.released}/hold` }),
+      expect: inExercise(['facilitator'], 409),
+    },
+    {
+      route: 'POST exercises/[id]/injects/[key]/release.post.ts',
+      call: c => ({ path: `${X(c)}/injects/${c.released}/release` }),
+      expect: inExercise(['facilitator'], 409),
+    },
+    {
+      route: 'POST exercises/[id]/solutions/[key]/publish.post.ts',
+      call: c => ({ path: `${X(c)}/solutions/${c.published}/publish` }),
+      expect: inExercise(['facilitator'], 409),
+    },
+    {
+      route: 'POST exercises/[id]/members/index.post.ts',
+      call: c => ({ path: `${X(c)}/members`, body: INVALID }),
+      expect: inExercise(['facilitator'], 400),
+    },
+    {
+      route: 'PATCH exercises/[id]/members/[userId].patch.ts',
+      call: c => ({ path: `${X(c)}/members/${c.facilitatorId}`, body: INVALID }),
+      expect: inExercise(['facilitator'], 400),
+    },
     // The only facilitator cannot leave: 409 after the guard.
-    { route: 'DELETE exercises/[id]/members/[userId].delete.ts', call: c => ({ path: `${X(c)}/members/${c.facilitatorId}` }), expect: inExercise(['facilitator'], 409) },
-    { route: 'POST exercises/[id]/messages.post.ts', call: c => ({ path: `${X(c)}/messages`, body: INVALID }), expect: inExercise(['facilitator'], 400) },
-    { route: 'POST exercises/[id]/observations.post.ts', call: c => ({ path: `${X(c)}/observations`, body: INVALID }), expect: inExercise(['evaluator', 'facilitator'], 400) },
-    { route: 'POST exercises/[id]/responses.post.ts', call: c => ({ path: `${X(c)}/responses`, body: INVALID }), expect: inExercise(PLAYERS, 400) },
-    { route: 'POST exercises/[id]/scores.post.ts', call: c => ({ path: `${X(c)}/scores`, body: INVALID }), expect: inExercise(['evaluator', 'facilitator'], 400) },
-    { route: 'GET exercises/[id]/timeline.csv.get.ts', call: c => ({ path: `${X(c)}/timeline.csv` }), expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/timeline.json.get.ts', call: c => ({ path: `${X(c)}/timeline.json` }), expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/timeline.xlsx.get.ts', call: c => ({ path: `${X(c)}/timeline.xlsx` }), expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/wall-tokens/index.get.ts', call: c => ({ path: `${X(c)}/wall-tokens` }), expect: inExercise(['facilitator'], 200) },
-    { route: 'POST exercises/[id]/wall-tokens/index.post.ts', call: c => ({ path: `${X(c)}/wall-tokens`, body: INVALID }), expect: inExercise(['facilitator'], 400) },
-    { route: 'DELETE exercises/[id]/wall-tokens/[tokenId].delete.ts', call: c => ({ path: `${X(c)}/wall-tokens/${c.missing}` }), expect: inExercise(['facilitator'], { status: 404, message: /wall link/ }) },
+    {
+      route: 'DELETE exercises/[id]/members/[userId].delete.ts',
+      call: c => ({ path: `${X(c)}/members/${c.facilitatorId}` }),
+      expect: inExercise(['facilitator'], 409),
+    },
+    {
+      route: 'POST exercises/[id]/messages.post.ts',
+      call: c => ({ path: `${X(c)}/messages`, body: INVALID }),
+      expect: inExercise(['facilitator'], 400),
+    },
+    {
+      route: 'POST exercises/[id]/observations.post.ts',
+      call: c => ({ path: `${X(c)}/observations`, body: INVALID }),
+      expect: inExercise(['evaluator', 'facilitator'], 400),
+    },
+    {
+      route: 'POST exercises/[id]/responses.post.ts',
+      call: c => ({ path: `${X(c)}/responses`, body: INVALID }),
+      expect: inExercise(PLAYERS, 400),
+    },
+    {
+      route: 'POST exercises/[id]/scores.post.ts',
+      call: c => ({ path: `${X(c)}/scores`, body: INVALID }),
+      expect: inExercise(['evaluator', 'facilitator'], 400),
+    },
+    {
+      route: 'GET exercises/[id]/timeline.csv.get.ts',
+      call: c => ({ path: `${X(c)}/timeline.csv` }),
+      expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/timeline.json.get.ts',
+      call: c => ({ path: `${X(c)}/timeline.json` }),
+      expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/timeline.xlsx.get.ts',
+      call: c => ({ path: `${X(c)}/timeline.xlsx` }),
+      expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/wall-tokens/index.get.ts',
+      call: c => ({ path: `${X(c)}/wall-tokens` }),
+      expect: inExercise(['facilitator'], 200),
+    },
+    {
+      route: 'POST exercises/[id]/wall-tokens/index.post.ts',
+      call: c => ({ path: `${X(c)}/wall-tokens`, body: INVALID }),
+      expect: inExercise(['facilitator'], 400),
+    },
+    {
+      route: 'DELETE exercises/[id]/wall-tokens/[tokenId].delete.ts',
+      call: c => ({ path: `${X(c)}/wall-tokens/${c.missing}` }),
+      expect: inExercise(['facilitator'], { status: 404, message: /wall link/ }),
+    },
     // After-action routes (review desk, reports, feedback).
-    { route: 'GET exercises/[id]/review/index.get.ts', call: c => ({ path: `${X(c)}/review` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/review/decisions.get.ts', call: c => ({ path: `${X(c)}/review/decisions` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/review/replay.get.ts', call: c => ({ path: `${X(c)}/review/replay` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/review/scoring.get.ts', call: c => ({ path: `${X(c)}/review/scoring` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/review/solutions/[key].get.ts', call: c => ({ path: `${X(c)}/review/solutions/${c.published}` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/findings/index.get.ts', call: c => ({ path: `${X(c)}/findings` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'POST exercises/[id]/findings/index.post.ts', call: c => ({ path: `${X(c)}/findings`, body: INVALID }), expect: inExercise(['facilitator', 'analyst'], 400) },
-    { route: 'PATCH exercises/[id]/findings/[findingId].patch.ts', call: c => ({ path: `${X(c)}/findings/${c.missing}`, body: INVALID }), expect: inExercise(['facilitator', 'analyst'], 400) },
-    { route: 'DELETE exercises/[id]/findings/[findingId].delete.ts', call: c => ({ path: `${X(c)}/findings/${c.missing}` }), expect: inExercise(['facilitator', 'analyst'], { status: 404, message: /finding/i }) },
-    { route: 'GET exercises/[id]/improvements/index.get.ts', call: c => ({ path: `${X(c)}/improvements` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'POST exercises/[id]/improvements/index.post.ts', call: c => ({ path: `${X(c)}/improvements`, body: INVALID }), expect: inExercise(['facilitator', 'analyst'], 400) },
-    { route: 'PATCH exercises/[id]/improvements/[itemId].patch.ts', call: c => ({ path: `${X(c)}/improvements/${c.missing}`, body: INVALID }), expect: inExercise(['facilitator', 'analyst'], 400) },
-    { route: 'DELETE exercises/[id]/improvements/[itemId].delete.ts', call: c => ({ path: `${X(c)}/improvements/${c.missing}` }), expect: inExercise(['facilitator', 'analyst'], { status: 404, message: /item|improvement|action/i }) },
-    { route: 'GET exercises/[id]/hotwash/index.get.ts', call: c => ({ path: `${X(c)}/hotwash` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'PUT exercises/[id]/hotwash/[section].put.ts', call: c => ({ path: `${X(c)}/hotwash/${HOTWASH_SECTION}`, body: INVALID }), expect: inExercise(['facilitator', 'analyst'], 400) },
-    { route: 'GET exercises/[id]/feedback/index.get.ts', call: c => ({ path: `${X(c)}/feedback` }), expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }) },
-    { route: 'POST exercises/[id]/feedback/index.post.ts', call: c => ({ path: `${X(c)}/feedback`, body: INVALID }), expect: inExercise(MEMBERS, 400) },
+    {
+      route: 'GET exercises/[id]/review/index.get.ts',
+      call: c => ({ path: `${X(c)}/review` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/review/decisions.get.ts',
+      call: c => ({ path: `${X(c)}/review/decisions` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/review/replay.get.ts',
+      call: c => ({ path: `${X(c)}/review/replay` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/review/scoring.get.ts',
+      call: c => ({ path: `${X(c)}/review/scoring` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/review/solutions/[key].get.ts',
+      call: c => ({ path: `${X(c)}/review/solutions/${c.published}` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/findings/index.get.ts',
+      call: c => ({ path: `${X(c)}/findings` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'POST exercises/[id]/findings/index.post.ts',
+      call: c => ({ path: `${X(c)}/findings`, body: INVALID }),
+      expect: inExercise(['facilitator', 'analyst'], 400),
+    },
+    {
+      route: 'PATCH exercises/[id]/findings/[findingId].patch.ts',
+      call: c => ({ path: `${X(c)}/findings/${c.missing}`, body: INVALID }),
+      expect: inExercise(['facilitator', 'analyst'], 400),
+    },
+    {
+      route: 'DELETE exercises/[id]/findings/[findingId].delete.ts',
+      call: c => ({ path: `${X(c)}/findings/${c.missing}` }),
+      expect: inExercise(['facilitator', 'analyst'], { status: 404, message: /finding/i }),
+    },
+    {
+      route: 'GET exercises/[id]/improvements/index.get.ts',
+      call: c => ({ path: `${X(c)}/improvements` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'POST exercises/[id]/improvements/index.post.ts',
+      call: c => ({ path: `${X(c)}/improvements`, body: INVALID }),
+      expect: inExercise(['facilitator', 'analyst'], 400),
+    },
+    {
+      route: 'PATCH exercises/[id]/improvements/[itemId].patch.ts',
+      call: c => ({ path: `${X(c)}/improvements/${c.missing}`, body: INVALID }),
+      expect: inExercise(['facilitator', 'analyst'], 400),
+    },
+    {
+      route: 'DELETE exercises/[id]/improvements/[itemId].delete.ts',
+      call: c => ({ path: `${X(c)}/improvements/${c.missing}` }),
+      expect: inExercise(['facilitator', 'analyst'], { status: 404, message: /item|improvement|action/i }),
+    },
+    {
+      route: 'GET exercises/[id]/hotwash/index.get.ts',
+      call: c => ({ path: `${X(c)}/hotwash` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'PUT exercises/[id]/hotwash/[section].put.ts',
+      call: c => ({ path: `${X(c)}/hotwash/${HOTWASH_SECTION}`, body: INVALID }),
+      expect: inExercise(['facilitator', 'analyst'], 400),
+    },
+    {
+      route: 'GET exercises/[id]/feedback/index.get.ts',
+      call: c => ({ path: `${X(c)}/feedback` }),
+      expect: inExercise(['facilitator', 'analyst', 'evaluator'], 200, { admin: true }),
+    },
+    {
+      route: 'POST exercises/[id]/feedback/index.post.ts',
+      call: c => ({ path: `${X(c)}/feedback`, body: INVALID }),
+      expect: inExercise(MEMBERS, 400),
+    },
     { route: 'GET exercises/[id]/feedback/mine.get.ts', call: c => ({ path: `${X(c)}/feedback/mine` }), expect: inExercise(MEMBERS, 200) },
-    { route: 'POST exercises/[id]/feedback/request.post.ts', call: c => ({ path: `${X(c)}/feedback/request`, body: INVALID }), expect: inExercise(['facilitator', 'analyst'], 400) },
-    { route: 'GET exercises/[id]/report/index.get.ts', call: c => ({ path: `${X(c)}/report` }), expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }) },
-    { route: 'POST exercises/[id]/report/send.post.ts', call: c => ({ path: `${X(c)}/report/send`, body: INVALID }), expect: inExercise(['facilitator', 'analyst'], 400) },
-    { route: 'GET exercises/[id]/report.pdf.get.ts', call: c => ({ path: `${X(c)}/report.pdf` }), expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }) },
-    { route: 'GET exercises/[id]/inject-cards.pdf.get.ts', call: c => ({ path: `${X(c)}/inject-cards.pdf` }), expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }) },
+    {
+      route: 'POST exercises/[id]/feedback/request.post.ts',
+      call: c => ({ path: `${X(c)}/feedback/request`, body: INVALID }),
+      expect: inExercise(['facilitator', 'analyst'], 400),
+    },
+    {
+      route: 'GET exercises/[id]/report/index.get.ts',
+      call: c => ({ path: `${X(c)}/report` }),
+      expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }),
+    },
+    {
+      route: 'POST exercises/[id]/report/send.post.ts',
+      call: c => ({ path: `${X(c)}/report/send`, body: INVALID }),
+      expect: inExercise(['facilitator', 'analyst'], 400),
+    },
+    {
+      route: 'GET exercises/[id]/report.pdf.get.ts',
+      call: c => ({ path: `${X(c)}/report.pdf` }),
+      expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }),
+    },
+    {
+      route: 'GET exercises/[id]/inject-cards.pdf.get.ts',
+      call: c => ({ path: `${X(c)}/inject-cards.pdf` }),
+      expect: inExercise(['facilitator', 'analyst'], 200, { admin: true }),
+    },
     // The scenario library.
     { route: 'GET scenarios/index.get.ts', call: () => ({ path: '/api/scenarios' }), expect: authors(200) },
     { route: 'POST scenarios/index.post.ts', call: () => ({ path: '/api/scenarios', body: INVALID }), expect: authors(400) },
@@ -130,8 +294,16 @@ const MATRIX: { routes: RouteRow[]; rooms: RoomRow[] } = {
     { route: 'GET scenarios/[id]/export.get.ts', call: c => ({ path: `${S(c)}/export` }), expect: authors(200) },
     { route: 'POST scenarios/[id]/duplicate.post.ts', call: c => ({ path: `/api/scenarios/${c.missing}/duplicate` }), expect: authors({ status: 404, message: /No such scenario/ }) },
     { route: 'POST scenarios/[id]/exercises.post.ts', call: c => ({ path: `${S(c)}/exercises`, body: INVALID }), expect: authors(400) },
-    { route: 'GET scenarios/[id]/attachments/[attachmentId].get.ts', call: c => ({ path: `${S(c)}/attachments/${c.scenarioAttachment}` }), expect: authors(200) },
-    { route: 'POST scenarios/[id]/attachments/index.post.ts', call: c => ({ path: `${S(c)}/attachments`, body: INVALID }), expect: authors(400) },
+    {
+      route: 'GET scenarios/[id]/attachments/[attachmentId].get.ts',
+      call: c => ({ path: `${S(c)}/attachments/${c.scenarioAttachment}` }),
+      expect: authors(200),
+    },
+    {
+      route: 'POST scenarios/[id]/attachments/index.post.ts',
+      call: c => ({ path: `${S(c)}/attachments`, body: INVALID }),
+      expect: authors(400),
+    },
     // The wall view: the share token is the only key; everyone holding it reads the wall.
     { route: 'GET wall/[token].get.ts', call: c => ({ path: `/api/wall/${c.wallToken}` }), expect: everyone(200) },
   ],
@@ -141,7 +313,10 @@ const MATRIX: { routes: RouteRow[]; rooms: RoomRow[] } = {
     { room: 'team:comms', expect: { facilitator: true, comms: true, evaluator: true, analyst: true, admin: true } },
     { room: 'control', expect: { facilitator: true } },
     { room: 'evaluators', expect: { facilitator: true, evaluator: true, analyst: true, admin: true } },
-    { room: 'wall', expect: { facilitator: true, science: true, civil: true, comms: true, evaluator: true, analyst: true, admin: true, wall: true } },
+    {
+      room: 'wall',
+      expect: { facilitator: true, science: true, civil: true, comms: true, evaluator: true, analyst: true, admin: true, wall: true },
+    },
   ],
 }
 const HOTWASH_SECTION = HOTWASH_KEYS[0]
@@ -175,13 +350,22 @@ beforeAll(async () => {
   clients.admin = await as('admin')
   clients.anonymous = new Client()
   clients.wall = new Client()
-  for (const [slot, role, teamKey] of [['science', 'player', 'science'], ['civil', 'player', 'civil'], ['comms', 'player', 'comms'], ['evaluator', 'evaluator', null], ['analyst', 'analyst', null]] as const) {
+  for (const [slot, role, teamKey] of [
+    ['science', 'player', 'science'],
+    ['civil', 'player', 'civil'],
+    ['comms', 'player', 'comms'],
+    ['evaluator', 'evaluator', null],
+    ['analyst', 'analyst', null],
+  ] as const) {
     const p = await newPerson(`Matrix ${slot}`)
     expect((await facilitator.post(`/api/exercises/${ctx.exerciseId}/members`, { email: p.email, role, teamKey })).status).toBe(201)
     clients[slot] = p.client
   }
   const outsider = await newPerson('Matrix outsider')
-  expect((await facilitator.post(`/api/exercises/${other}/members`, { email: outsider.email, role: 'player', teamKey: 'science' })).status).toBe(201)
+  expect((await facilitator.post(
+    `/api/exercises/${other}/members`,
+    { email: outsider.email, role: 'player', teamKey: 'science' },
+  )).status).toBe(201)
   clients.outsider = outsider.client
 
   const doc = scenario.document as Scenario
@@ -222,7 +406,7 @@ describe('the authorisation matrix', () => {
         if (!ok) failures.push(`${row.route} as ${role}: expected ${status}${message ? ` ${message}` : ''}, got ${res.status} ${(res.json?.message ?? '').slice(0, 80)}`)
       }))
     }
-    console.info(`[hardening-matrix] ${MATRIX.routes.length} routes × ${ROLES.length} roles = ${cells} HTTP cells`)
+    console.info(`[authorisation-matrix] ${MATRIX.routes.length} routes × ${ROLES.length} roles = ${cells} HTTP cells`)
     expect(failures).toEqual([])
   }, 120_000)
 })
@@ -232,12 +416,16 @@ describe('socket rooms against every role', () => {
   afterAll(() => { for (const s of sockets) s.close() })
 
   it('each role joins only the rooms the table gives it; outsiders and anonymous callers are refused', async () => {
-    const heard = Object.fromEntries(ROLES.map(r => [r, [] as Array<{ type: string; data: any }>])) as Record<Role, Array<{ type: string; data: any }>> // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
+    type Heard = Array<{ type: string; data: any }> // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
+    const heard = Object.fromEntries(ROLES.map(r => [r, [] as Heard])) as Record<Role, Heard>
     const results = {} as Record<Role, string>
     await Promise.all(ROLES.map(role => new Promise<void>((done) => {
       const auth = role === 'wall' ? { wallToken: ctx.wallToken } : { exerciseId: ctx.exerciseId }
       const cookie: Record<string, string> = clients[role].cookies.size ? { cookie: clients[role].cookieHeader } : {}
-      const s = io(baseUrl(), { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: cookie, auth })
+      const s = io(
+        baseUrl(),
+        { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, extraHeaders: cookie, auth },
+      )
       sockets.push(s)
       s.on('event', (e: { type: string; data: unknown }) => heard[role].push(e as never))
       s.once('live:ready', (r: { view: string }) => { results[role] = `ready:${r.view}`; done() })
@@ -254,7 +442,8 @@ describe('socket rooms against every role', () => {
     const f = clients.facilitator
     const x = `/api/exercises/${ctx.exerciseId}`
     const doc = (await f.get(`/api/scenarios/${ctx.scenarioId}`)).json.document as Scenario
-    const probes = new Map<string, (e: { type: string; data: any }) => boolean>() // eslint-disable-line @typescript-eslint/no-explicit-any -- see above
+    type Probe = (e: { type: string; data: any }) => boolean // eslint-disable-line @typescript-eslint/no-explicit-any -- see above
+    const probes = new Map<string, Probe>()
     for (const team of ['science', 'civil', 'comms']) {
       const inject = doc.injects.find(i => !i.contingency && i.teams.length === 1 && i.teams[0] === team && i.key !== ctx.released)!
       expect((await f.post(`${x}/injects/${inject.key}/release`)).status).toBe(201)
@@ -281,12 +470,15 @@ describe('socket rooms against every role', () => {
         if (got !== want) failures.push(`room ${row.room} as ${role}: expected ${want ? 'heard' : 'silent'}, got ${got ? 'heard' : 'silent'}`)
       }
     }
-    console.info(`[hardening-matrix] ${MATRIX.rooms.length} rooms × ${ROLES.length} roles = ${cells} socket cells`)
+    console.info(`[authorisation-matrix] ${MATRIX.rooms.length} rooms × ${ROLES.length} roles = ${cells} socket cells`)
     expect(failures).toEqual([])
     // A revoked wall link stops at once and cannot connect again.
     const tokenId = (await f.get(`${x}/wall-tokens`)).json.find((t: { label: string }) => t.label === 'Matrix wall').id
     expect((await f.request('DELETE', `${x}/wall-tokens/${tokenId}`)).status).toBe(204)
-    const again = io(baseUrl(), { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, auth: { wallToken: ctx.wallToken } })
+    const again = io(
+      baseUrl(),
+      { path: '/socket.io/', transports: ['websocket'], forceNew: true, reconnection: false, auth: { wallToken: ctx.wallToken } },
+    )
     sockets.push(again)
     expect(await new Promise(r => again.once('connect_error', (e: Error) => r(e.message)))).toBe('forbidden')
     expect((await new Client().get(`/api/wall/${ctx.wallToken}`)).status).toBe(404)

@@ -1,7 +1,7 @@
 // Helpers for the live exercise tests: a fresh exercise from the demo scenario with its own people
 // (so that the demo accounts' exercise lists stay as other tests expect), and socket clients.
 import { io, type Socket } from 'socket.io-client'
-import { as, baseUrl, Client, mailTo } from './helpers'
+import { as, baseUrl, Client, mailTo } from './client'
 
 /** Invites a person (optionally an admin, who may start exercises) and signs them in. */
 export async function newPerson(name: string, systemRole: 'admin' | 'member' = 'member') {
@@ -51,16 +51,38 @@ export async function newLiveExercise(title = 'Live test drill'): Promise<LiveCa
   return cast
 }
 
-export interface LiveMessage { seq: number; type: string; wallTime: string; scenarioTime: string; data: any } // eslint-disable-line @typescript-eslint/no-explicit-any -- tests read any payload
+export interface LiveMessage {
+  seq: number
+  type: string
+  wallTime: string
+  scenarioTime: string
+  data: any // eslint-disable-line @typescript-eslint/no-explicit-any -- tests read any payload
+}
 
 /** A socket that records every `event` and `live:ready` it receives. */
-export interface LiveSocket { socket: Socket; events: LiveMessage[]; ready: any[]; errors: Error[] } // eslint-disable-line @typescript-eslint/no-explicit-any -- see above
+export interface LiveSocket {
+  socket: Socket
+  events: LiveMessage[]
+  ready: any[] // eslint-disable-line @typescript-eslint/no-explicit-any -- see above
+  errors: Error[]
+}
 
 const open: Socket[] = []
 
 /** Connects a live socket (websocket) with a session cookie (or none) and handshake auth. */
 export function liveSocket(cookie: string | null, auth: Record<string, unknown>, url = baseUrl()): LiveSocket {
-  const socket = io(url, { path: '/socket.io/', transports: ['websocket'], reconnection: false, forceNew: true, extraHeaders: cookie ? { cookie } : {}, auth, timeout: 5000 })
+  const socket = io(
+    url,
+    {
+      path: '/socket.io/',
+      transports: ['websocket'],
+      reconnection: false,
+      forceNew: true,
+      extraHeaders: cookie ? { cookie } : {},
+      auth,
+      timeout: 5000,
+    },
+  )
   const s: LiveSocket = { socket, events: [], ready: [], errors: [] }
   socket.on('event', (e: LiveMessage) => s.events.push(e))
   socket.on('live:ready', (r: unknown) => s.ready.push(r))
@@ -75,7 +97,11 @@ export function closeSockets() {
 }
 
 /** Waits until `check` returns (or resolves to) a truthy value, polling every 20 ms; fails after `ms`. */
-export async function until<T>(check: () => T | undefined | null | false | Promise<T | undefined | null | false>, ms = 10_000, what = 'condition'): Promise<T> {
+export async function until<T>(
+  check: () => T | undefined | null | false | Promise<T | undefined | null | false>,
+  ms = 10_000,
+  what = 'condition',
+): Promise<T> {
   const deadline = Date.now() + ms
   for (;;) {
     const v = await check()

@@ -1,8 +1,10 @@
 import type { Content } from 'pdfmake/interfaces'
-import { findHazardFields } from '../../shared/scenario/fields'
-import type { Inject, Scenario } from '../../shared/scenario/schema'
-import { injectRows, liveExercise } from '../live'
-import { renderPdf } from '../review'
+import { findHazardFields } from '#shared/scenario/fields'
+import type { Inject, Scenario } from '#shared/scenario/schema'
+import { injectRows, liveExercise } from '../../live'
+import { renderPdf } from '../pdf'
+import { PDF_INK, pdfDocument, pdfTime, pt } from './layout'
+import { markdownToPdf } from './markdown'
 
 /** An unreleased body with each hazard field shown by its name, `[energyMt.p50]`, for the facilitator to fill in. */
 export function bodyWithFieldNames(text: string): string {

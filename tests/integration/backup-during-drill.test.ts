@@ -6,9 +6,9 @@ import { copyFileSync, existsSync, rmSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import Database from 'better-sqlite3'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { until } from './live-helpers'
-import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { until } from '../support/live'
+import { demoScenario, drillScenario, Http, importScenario, sleep, TestServer } from '../support/test-server'
 import type { Scenario } from '../../shared/scenario'
 
 interface Ev { seq: number; type: string; data: any } // eslint-disable-line @typescript-eslint/no-explicit-any -- payloads of every type
@@ -34,7 +34,8 @@ function snapshot(file: string) {
   finally { db.close() }
 }
 
-/** A snapshot is one transaction's view: every release row has its event and every event its row, and the clock row is the last clock event's. */
+/** A snapshot is one transaction's view: every release row has its event and every event its row, and the clock row is the last clock
+ * event's. */
 function expectConsistent(s: ReturnType<typeof snapshot>) {
   expect(s.events.map(e => e.seq)).toEqual(s.events.map((_, i) => i + 1))
   const releasedEvents = new Map(s.events.filter(e => e.type === 'inject.released').map(e => [e.data.key as string, e.seq]))
@@ -42,7 +43,12 @@ function expectConsistent(s: ReturnType<typeof snapshot>) {
   expect(releasedRows).toEqual(releasedEvents)
   expect(new Map(s.solutions.map(r => [r.key, r.seq]))).toEqual(new Map(s.events.filter(e => e.type === 'solution.published').map(e => [e.data.key as string, e.seq])))
   const last = s.events.filter(e => e.type === 'clock.changed').at(-1)!.data.clock
-  expect({ wallAnchor: new Date(s.clock.wall_anchor).toISOString(), scenarioAnchor: new Date(s.clock.scenario_anchor).toISOString(), factor: s.clock.factor, paused: !!s.clock.paused })
+  expect({
+    wallAnchor: new Date(s.clock.wall_anchor).toISOString(),
+    scenarioAnchor: new Date(s.clock.scenario_anchor).toISOString(),
+    factor: s.clock.factor,
+    paused: !!s.clock.paused,
+  })
     .toEqual({ wallAnchor: last.wallAnchor, scenarioAnchor: last.scenarioAnchor, factor: last.factor, paused: last.paused })
 }
 
@@ -57,7 +63,10 @@ beforeAll(async () => {
   scenario = drillScenario((await demoScenario(facilitator)).document, 'backup-drill', 16)
   const id = await importScenario(facilitator, scenario)
   exerciseId = (await facilitator.post(`/api/scenarios/${id}/exercises`, { title: 'Backup drill' })).json.id
-  expect((await facilitator.post(`/api/exercises/${exerciseId}/members`, { email: DEMO.science, role: 'player', teamKey: 'science' })).status).toBe(201)
+  expect((await facilitator.post(
+    `/api/exercises/${exerciseId}/members`,
+    { email: DEMO.science, role: 'player', teamKey: 'science' },
+  )).status).toBe(201)
 }, 120_000)
 
 afterAll(async () => {
@@ -69,13 +78,19 @@ describe('a backup taken while a drill runs', () => {
     const scheduled = scenario.injects.filter(i => !i.contingency)
     const span = Math.max(...scheduled.map(i => Date.parse(i.at))) - Date.parse(scenario.clock.scenarioStart)
     // The schedule plays in about 12 s: the backups fall in the middle of the releases.
-    expect((await facilitator.post(`/api/exercises/${exerciseId}/clock`, { action: 'start', factor: Math.round(span / 12_000) })).status).toBe(200)
+    expect((await facilitator.post(
+      `/api/exercises/${exerciseId}/clock`,
+      { action: 'start', factor: Math.round(span / 12_000) },
+    )).status).toBe(200)
     let answering = true
     const traffic = (async () => {
       for (let n = 0; answering; n++) {
         const events = (await science.get(`/api/exercises/${exerciseId}/events?limit=1000`)).json.events as Ev[]
         const keys = released(events)
-        if (keys.length) await science.post(`/api/exercises/${exerciseId}/responses`, { injectKey: keys[n % keys.length], text: `answer ${n}`, idempotencyKey: `backup-${n}-answer` })
+        if (keys.length) await science.post(
+          `/api/exercises/${exerciseId}/responses`,
+          { injectKey: keys[n % keys.length], text: `answer ${n}`, idempotencyKey: `backup-${n}-answer` },
+        )
         await sleep(30)
       }
     })()
@@ -124,6 +139,6 @@ describe('a backup taken while a drill runs', () => {
     expect(released(final).length).toBe(scheduled.length)
     await server.stop()
     expectConsistent(snapshot(server.dbPath))
-    console.info(`[hardening-backup] 3 backups mid-drill (${counts.join(', ')} of ${scheduled.length} injects released), restored from the second (${middle.events.length} events), drill completed once`)
+    console.info(`[backup-during-drill] 3 backups mid-drill (${counts.join(', ')} of ${scheduled.length} injects released), restored from the second (${middle.events.length} events), drill completed once`)
   }, 120_000)
 })

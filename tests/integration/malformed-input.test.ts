@@ -15,12 +15,35 @@ import Papa from 'papaparse'
 import { stringify as yamlStringify } from 'yaml'
 import type { z } from 'zod'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO } from './helpers'
-import { demoScenario, Http, TestServer, type Answer } from './hardening-helpers'
+import { DEMO } from '../support/client'
+import { demoScenario, Http, TestServer, type Answer } from '../support/test-server'
 import { forgotSchema, inviteSchema, loginSchema, setPasswordSchema } from '../../shared/schemas/auth'
-import { clockActionSchema, messageSchema, observationSchema, responseSchema, scoreSchema, wallTokenSchema } from '../../shared/schemas/live'
-import { feedbackRequestSchema, feedbackSchema, findingPatchSchema, findingSchema, hotwashSchema, improvementPatchSchema, improvementSchema, reportSendSchema } from '../../shared/schemas/review'
-import { createScenarioSchema, memberPatchSchema, memberSchema, previewSchema, saveScenarioSchema, startExerciseSchema } from '../../shared/schemas/scenarios'
+import {
+  clockActionSchema,
+  messageSchema,
+  observationSchema,
+  responseSchema,
+  scoreSchema,
+  wallTokenSchema,
+} from '../../shared/schemas/live'
+import {
+  feedbackRequestSchema,
+  feedbackSchema,
+  findingPatchSchema,
+  findingSchema,
+  hotwashSchema,
+  improvementPatchSchema,
+  improvementSchema,
+  reportSendSchema,
+} from '../../shared/schemas/review'
+import {
+  createScenarioSchema,
+  memberPatchSchema,
+  memberSchema,
+  previewSchema,
+  saveScenarioSchema,
+  startExerciseSchema,
+} from '../../shared/schemas/scenarios'
 import { HOTWASH_KEYS } from '../../shared/review/plan'
 import { parseScenarioYaml, stringifyScenario, validateScenario, type Scenario } from '../../shared/scenario'
 
@@ -46,7 +69,10 @@ function checksum(exclude: string[] = []): string {
     const h = createHash('sha256')
     for (const t of tables) {
       h.update(t)
-      for (const row of db.prepare(`select * from "${t}" order by rowid`).raw().iterate()) h.update(JSON.stringify(row, (_k, v) => (typeof v === 'bigint' ? String(v) : Buffer.isBuffer(v) ? v.toString('hex') : v)))
+      for (const row of db.prepare(`select * from "${t}" order by rowid`).raw().iterate()) h.update(JSON.stringify(
+        row,
+        (_k, v) => (typeof v === 'bigint' ? String(v) : Buffer.isBuffer(v) ? v.toString('hex') : v),
+      ))
     }
     return h.digest('hex')
   }
@@ -82,32 +108,219 @@ function brokenBodies(valid: Record<string, unknown>) {
   )
 }
 
-interface BodyRoute { name: string; method: string; path: () => string; as: () => Http; schema: z.ZodType; valid: () => Record<string, unknown>; alsoValid?: (b: unknown) => boolean }
+interface BodyRoute {
+  name: string
+  method: string
+  path: () => string
+  as: () => Http
+  schema: z.ZodType
+  valid: () => Record<string, unknown>
+  alsoValid?: (b: unknown) => boolean
+}
 const BODY_ROUTES: BodyRoute[] = [
-  { name: 'invitation', method: 'POST', path: () => '/api/admin/invitations', as: () => admin, schema: inviteSchema, valid: () => ({ email: 'a@example.test', name: 'A', systemRole: 'member' }) },
-  { name: 'login', method: 'POST', path: () => '/api/auth/login', as: () => anonymous, schema: loginSchema, valid: () => ({ email: 'a@example.test', password: 'p' }) },
-  { name: 'forgot', method: 'POST', path: () => '/api/auth/forgot', as: () => anonymous, schema: forgotSchema, valid: () => ({ email: 'a@example.test' }) },
-  { name: 'password', method: 'POST', path: () => '/api/auth/password', as: () => anonymous, schema: setPasswordSchema, valid: () => ({ token: 'x'.repeat(43), password: 'a-long-password' }) },
-  { name: 'clock', method: 'POST', path: () => x('/clock'), as: () => facilitator, schema: clockActionSchema, valid: () => ({ action: 'speed', factor: 2 }) },
-  { name: 'member add', method: 'POST', path: () => x('/members'), as: () => facilitator, schema: memberSchema, valid: () => ({ email: DEMO.comms, role: 'player', teamKey: 'comms' }) },
-  { name: 'member change', method: 'PATCH', path: () => x(`/members/${scienceId}`), as: () => facilitator, schema: memberPatchSchema, valid: () => ({ role: 'player', teamKey: 'civil' }) },
-  { name: 'message', method: 'POST', path: () => x('/messages'), as: () => facilitator, schema: messageSchema, valid: () => ({ teams: ['science'], title: 'T', body: 'B', kind: 'message', idempotencyKey: 'k-12345678' }) },
-  { name: 'observation', method: 'POST', path: () => x('/observations'), as: () => evaluator, schema: observationSchema, valid: () => ({ text: 'T', idempotencyKey: 'k-12345678' }) },
-  { name: 'response', method: 'POST', path: () => x('/responses'), as: () => science, schema: responseSchema, valid: () => ({ injectKey: 'detection-alert', text: 'T', idempotencyKey: 'k-12345678' }) },
-  { name: 'score', method: 'POST', path: () => x('/scores'), as: () => evaluator, schema: scoreSchema, valid: () => ({ criterionKey: 'c', taskKey: 't', rating: 'P', note: '', idempotencyKey: 'k-12345678' }) },
-  { name: 'wall link', method: 'POST', path: () => x('/wall-tokens'), as: () => facilitator, schema: wallTokenSchema, valid: () => ({ label: 'L' }) },
-  { name: 'finding', method: 'POST', path: () => x('/findings'), as: () => analyst, schema: findingSchema, valid: () => ({ kind: 'strength', objectiveKey: 'o', capability: 'C', title: 'T', detail: '' }) },
-  { name: 'finding change', method: 'PATCH', path: () => x(`/findings/${crypto.randomUUID()}`), as: () => analyst, schema: findingPatchSchema, valid: () => ({ title: 'T' }) },
-  { name: 'improvement', method: 'POST', path: () => x('/improvements'), as: () => analyst, schema: improvementSchema, valid: () => ({ objectiveKey: 'o', capability: 'C', action: 'A', element: 'Planning', owner: 'O', startDate: '2031-01-01', dueDate: '2031-02-01', status: 'open' }) },
-  { name: 'improvement change', method: 'PATCH', path: () => x(`/improvements/${crypto.randomUUID()}`), as: () => analyst, schema: improvementPatchSchema, valid: () => ({ owner: 'O' }) },
-  { name: 'hotwash', method: 'PUT', path: () => x(`/hotwash/${HOTWASH_KEYS[0]}`), as: () => analyst, schema: hotwashSchema, valid: () => ({ body: 'B', revision: 0 }) },
-  { name: 'feedback', method: 'POST', path: () => x('/feedback'), as: () => science, schema: feedbackSchema, valid: () => ({ ratings: {}, wentWell: '', toImprove: '' }) },
-  { name: 'feedback request', method: 'POST', path: () => x('/feedback/request'), as: () => analyst, schema: feedbackRequestSchema, valid: () => ({ userIds: [crypto.randomUUID()], message: '' }) },
-  { name: 'report by mail', method: 'POST', path: () => x('/report/send'), as: () => analyst, schema: reportSendSchema, valid: () => ({ userIds: [crypto.randomUUID()], message: '' }) },
-  { name: 'new scenario', method: 'POST', path: () => '/api/scenarios', as: () => facilitator, schema: createScenarioSchema, valid: () => ({ title: 'T', key: 'k' }) },
-  { name: 'scenario save', method: 'PUT', path: () => `/api/scenarios/${scenarioId}`, as: () => facilitator, schema: saveScenarioSchema, valid: () => ({ revision: scenarioRevision, document: demo }), alsoValid: b => validateScenario((b as { document?: unknown }).document).ok && (b as { revision?: unknown }).revision === scenarioRevision },
-  { name: 'start exercise', method: 'POST', path: () => `/api/scenarios/${scenarioId}/exercises`, as: () => facilitator, schema: startExerciseSchema, valid: () => ({ title: 'T', description: '' }) },
-  { name: 'preview', method: 'POST', path: () => '/api/scenarios/preview', as: () => facilitator, schema: previewSchema, valid: () => ({ solution: demo.solutions[0]!.solution, sites: [], samples: 500, seed: 1 }) },
+  {
+    name: 'invitation',
+    method: 'POST',
+    path: () => '/api/admin/invitations',
+    as: () => admin,
+    schema: inviteSchema,
+    valid: () => ({ email: 'a@example.test', name: 'A', systemRole: 'member' }),
+  },
+  {
+    name: 'login',
+    method: 'POST',
+    path: () => '/api/auth/login',
+    as: () => anonymous,
+    schema: loginSchema,
+    valid: () => ({ email: 'a@example.test', password: 'p' }),
+  },
+  {
+    name: 'forgot',
+    method: 'POST',
+    path: () => '/api/auth/forgot',
+    as: () => anonymous,
+    schema: forgotSchema,
+    valid: () => ({ email: 'a@example.test' }),
+  },
+  {
+    name: 'password',
+    method: 'POST',
+    path: () => '/api/auth/password',
+    as: () => anonymous,
+    schema: setPasswordSchema,
+    valid: () => ({ token: 'x'.repeat(43), password: 'a-long-password' }),
+  },
+  {
+    name: 'clock',
+    method: 'POST',
+    path: () => x('/clock'),
+    as: () => facilitator,
+    schema: clockActionSchema,
+    valid: () => ({ action: 'speed', factor: 2 }),
+  },
+  {
+    name: 'member add',
+    method: 'POST',
+    path: () => x('/members'),
+    as: () => facilitator,
+    schema: memberSchema,
+    valid: () => ({ email: DEMO.comms, role: 'player', teamKey: 'comms' }),
+  },
+  {
+    name: 'member change',
+    method: 'PATCH',
+    path: () => x(`/members/${scienceId}`),
+    as: () => facilitator,
+    schema: memberPatchSchema,
+    valid: () => ({ role: 'player', teamKey: 'civil' }),
+  },
+  {
+    name: 'message',
+    method: 'POST',
+    path: () => x('/messages'),
+    as: () => facilitator,
+    schema: messageSchema,
+    valid: () => ({ teams: ['science'], title: 'T', body: 'B', kind: 'message', idempotencyKey: 'k-12345678' }),
+  },
+  {
+    name: 'observation',
+    method: 'POST',
+    path: () => x('/observations'),
+    as: () => evaluator,
+    schema: observationSchema,
+    valid: () => ({ text: 'T', idempotencyKey: 'k-12345678' }),
+  },
+  {
+    name: 'response',
+    method: 'POST',
+    path: () => x('/responses'),
+    as: () => science,
+    schema: responseSchema,
+    valid: () => ({ injectKey: 'detection-alert', text: 'T', idempotencyKey: 'k-12345678' }),
+  },
+  {
+    name: 'score',
+    method: 'POST',
+    path: () => x('/scores'),
+    as: () => evaluator,
+    schema: scoreSchema,
+    valid: () => ({ criterionKey: 'c', taskKey: 't', rating: 'P', note: '', idempotencyKey: 'k-12345678' }),
+  },
+  {
+    name: 'wall link',
+    method: 'POST',
+    path: () => x('/wall-tokens'),
+    as: () => facilitator,
+    schema: wallTokenSchema,
+    valid: () => ({ label: 'L' }),
+  },
+  {
+    name: 'finding',
+    method: 'POST',
+    path: () => x('/findings'),
+    as: () => analyst,
+    schema: findingSchema,
+    valid: () => ({ kind: 'strength', objectiveKey: 'o', capability: 'C', title: 'T', detail: '' }),
+  },
+  {
+    name: 'finding change',
+    method: 'PATCH',
+    path: () => x(`/findings/${crypto.randomUUID()}`),
+    as: () => analyst,
+    schema: findingPatchSchema,
+    valid: () => ({ title: 'T' }),
+  },
+  {
+    name: 'improvement',
+    method: 'POST',
+    path: () => x('/improvements'),
+    as: () => analyst,
+    schema: improvementSchema,
+    valid: () => ({
+      objectiveKey: 'o',
+      capability: 'C',
+      action: 'A',
+      element: 'Planning',
+      owner: 'O',
+      startDate: '2031-01-01',
+      dueDate: '2031-02-01',
+      status: 'open',
+    }),
+  },
+  {
+    name: 'improvement change',
+    method: 'PATCH',
+    path: () => x(`/improvements/${crypto.randomUUID()}`),
+    as: () => analyst,
+    schema: improvementPatchSchema,
+    valid: () => ({ owner: 'O' }),
+  },
+  {
+    name: 'hotwash',
+    method: 'PUT',
+    path: () => x(`/hotwash/${HOTWASH_KEYS[0]}`),
+    as: () => analyst,
+    schema: hotwashSchema,
+    valid: () => ({ body: 'B', revision: 0 }),
+  },
+  {
+    name: 'feedback',
+    method: 'POST',
+    path: () => x('/feedback'),
+    as: () => science,
+    schema: feedbackSchema,
+    valid: () => ({ ratings: {}, wentWell: '', toImprove: '' }),
+  },
+  {
+    name: 'feedback request',
+    method: 'POST',
+    path: () => x('/feedback/request'),
+    as: () => analyst,
+    schema: feedbackRequestSchema,
+    valid: () => ({ userIds: [crypto.randomUUID()], message: '' }),
+  },
+  {
+    name: 'report by mail',
+    method: 'POST',
+    path: () => x('/report/send'),
+    as: () => analyst,
+    schema: reportSendSchema,
+    valid: () => ({ userIds: [crypto.randomUUID()], message: '' }),
+  },
+  {
+    name: 'new scenario',
+    method: 'POST',
+    path: () => '/api/scenarios',
+    as: () => facilitator,
+    schema: createScenarioSchema,
+    valid: () => ({ title: 'T', key: 'k' }),
+  },
+  {
+    name: 'scenario save',
+    method: 'PUT',
+    path: () => `/api/scenarios/${scenarioId}`,
+    as: () => facilitator,
+    schema: saveScenarioSchema,
+    valid: () => ({ revision: scenarioRevision, document: demo }),
+    alsoValid: b => validateScenario((b as { document?: unknown }).document).ok
+      && (b as { revision?: unknown }).revision === scenarioRevision,
+  },
+  {
+    name: 'start exercise',
+    method: 'POST',
+    path: () => `/api/scenarios/${scenarioId}/exercises`,
+    as: () => facilitator,
+    schema: startExerciseSchema,
+    valid: () => ({ title: 'T', description: '' }),
+  },
+  {
+    name: 'preview',
+    method: 'POST',
+    path: () => '/api/scenarios/preview',
+    as: () => facilitator,
+    schema: previewSchema,
+    valid: () => ({ solution: demo.solutions[0]!.solution, sites: [], samples: 500, seed: 1 }),
+  },
 ]
 
 /** Every route with parameters, with the caller that may use it: random parameters must never reach a 5xx. */
@@ -133,7 +346,23 @@ const PARAM_ROUTES: Array<{ method: string; path: (p: string) => string; as: () 
   { method: 'GET', path: p => `/api/scenarios/${scenarioId}/attachments/${p}`, as: () => facilitator },
   { method: 'GET', path: p => `/api/wall/${p}`, as: () => anonymous },
 ]
-const TRAVERSAL = ['..', '../..', '..%2F..%2Fetc%2Fpasswd', '%2e%2e%2f%2e%2e%2f', '..\\..\\windows', '%00', '.%00.', '%252e%252e%252f', '....//....//', '/etc/passwd', 'a'.repeat(5000), '%C0%AE%C0%AE%2F', '~', '*', '%ff%fe']
+const TRAVERSAL = [
+  '..',
+  '../..',
+  '..%2F..%2Fetc%2Fpasswd',
+  '%2e%2e%2f%2e%2e%2f',
+  '..\\..\\windows',
+  '%00',
+  '.%00.',
+  '%252e%252e%252f',
+  '....//....//',
+  '/etc/passwd',
+  'a'.repeat(5000),
+  '%C0%AE%C0%AE%2F',
+  '~',
+  '*',
+  '%ff%fe',
+]
 
 async function upload(who: Http, path: string, name: string, bytes: Uint8Array | string, type = 'application/octet-stream') {
   const form = new FormData()
@@ -154,7 +383,11 @@ beforeAll(async () => {
   demo = d.document
   scenarioId = (await facilitator.post(`/api/scenarios/${d.id}/duplicate`)).json.id
   exerciseId = (await facilitator.post(`/api/scenarios/${d.id}/exercises`, { title: 'Input drill' })).json.id
-  for (const [email, role, teamKey] of [[DEMO.science, 'player', 'science'], [DEMO.evaluator, 'evaluator', null], [DEMO.analyst, 'analyst', null]] as const) {
+  for (const [email, role, teamKey] of [
+    [DEMO.science, 'player', 'science'],
+    [DEMO.evaluator, 'evaluator', null],
+    [DEMO.analyst, 'analyst', null],
+  ] as const) {
     expect((await facilitator.post(x('/members'), { email, role, teamKey })).status).toBe(201)
   }
   scienceId = (await science.get('/api/me')).json.user.id
@@ -165,7 +398,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   const total = Object.values(tried).reduce((a, b) => a + b, 0)
-  console.info(`[hardening-input] ${total} bad inputs tried: ${Object.entries(tried).map(([k, v]) => `${k} ${v}`).join(', ')}`)
+  console.info(`[malformed-input] ${total} bad inputs tried: ${Object.entries(tried).map(([k, v]) => `${k} ${v}`).join(', ')}`)
   await server.dispose()
 })
 
@@ -173,7 +406,8 @@ describe('random and malformed bodies', () => {
   for (const route of BODY_ROUTES) {
     it(`${route.method} ${route.name}: a broken body is a 400 with field issues and changes nothing`, async () => {
       await untouched(async () => {
-        const invalid = brokenBodies(route.valid()).filter(b => !(route.schema.safeParse(b ?? {}).success && (route.alsoValid?.(b) ?? true)))
+        const accepted = (b: unknown) => route.schema.safeParse(b ?? {}).success && (route.alsoValid?.(b) ?? true)
+        const invalid = brokenBodies(route.valid()).filter(b => !accepted(b))
         await fc.assert(fc.asyncProperty(invalid, async (body) => {
           const res = await route.as().call(route.method, route.path(), JSON.stringify(body), { 'content-type': 'application/json' })
           count('json bodies')
@@ -188,7 +422,19 @@ describe('random and malformed bodies', () => {
     await untouched(async () => {
       const raw = fc.oneof(
         fc.string({ maxLength: 300 }),
-        fc.constantFrom('{', '{"a":', '[1,2', '"unterminated', '{"__proto__":{"isAdmin":true}}', '{"constructor":{"prototype":{"polluted":1}}}', 'null', 'true', '1e309', '\u0000', '{"a":1}{"b":2}'),
+        fc.constantFrom(
+          '{',
+          '{"a":',
+          '[1,2',
+          '"unterminated',
+          '{"__proto__":{"isAdmin":true}}',
+          '{"constructor":{"prototype":{"polluted":1}}}',
+          'null',
+          'true',
+          '1e309',
+          '\u0000',
+          '{"a":1}{"b":2}',
+        ),
         fc.jsonValue().map(v => JSON.stringify(v).slice(0, -1)),
       )
       await fc.assert(fc.asyncProperty(raw, fc.constantFrom(...BODY_ROUTES), async (text, route) => {
@@ -206,7 +452,17 @@ describe('random and malformed bodies', () => {
 
   it('a body sent as another content type is refused with 415, even when it is valid JSON', async () => {
     await untouched(async () => {
-      const types = fc.constantFrom('text/plain', 'text/plain;charset=UTF-8', 'application/x-www-form-urlencoded', 'multipart/form-data; boundary=x', 'application/xml', 'text/html', 'application/jsonp', 'application/json-patch', 'image/png')
+      const types = fc.constantFrom(
+        'text/plain',
+        'text/plain;charset=UTF-8',
+        'application/x-www-form-urlencoded',
+        'multipart/form-data; boundary=x',
+        'application/xml',
+        'text/html',
+        'application/jsonp',
+        'application/json-patch',
+        'image/png',
+      )
       await fc.assert(fc.asyncProperty(types, fc.constantFrom(...BODY_ROUTES), async (type, route) => {
         const res = await route.as().call(route.method, route.path(), JSON.stringify(route.valid()), { 'content-type': type })
         count('wrong content types')
@@ -219,7 +475,12 @@ describe('random and malformed bodies', () => {
   it('an oversized request body is refused before it is read (413)', async () => {
     await untouched(async () => {
       for (const route of BODY_ROUTES.slice(0, 6)) {
-        const res = await route.as().call(route.method, route.path(), `{"a":"${'x'.repeat(7 * 1024 * 1024)}"}`, { 'content-type': 'application/json' })
+        const res = await route.as().call(
+          route.method,
+          route.path(),
+          `{"a":"${'x'.repeat(7 * 1024 * 1024)}"}`,
+          { 'content-type': 'application/json' },
+        )
         count('oversized bodies')
         expectClear4xx(res, route.name)
         expect(res.status).toBe(413)
@@ -244,14 +505,26 @@ describe('random route parameters and queries', () => {
 
   it('random queries of the event record and the importer are validated', async () => {
     await untouched(async () => {
-      const value = fc.oneof(fc.string({ maxLength: 30 }), fc.integer().map(String), fc.constantFrom('-1', '1e9', 'NaN', 'Infinity', '0x10', '[]', '%00'))
+      const value = fc.oneof(
+        fc.string({ maxLength: 30 }),
+        fc.integer().map(String),
+        fc.constantFrom('-1', '1e9', 'NaN', 'Infinity', '0x10', '[]', '%00'),
+      )
       await fc.assert(fc.asyncProperty(value, value, async (since, limit) => {
         const res = await facilitator.get(x(`/events?since=${encodeURIComponent(since)}&limit=${encodeURIComponent(limit)}`))
         count('queries')
         expect([200, 400], `since=${since} limit=${limit}`).toContain(res.status)
       }), { numRuns: RUNS * 3 })
-      await fc.assert(fc.asyncProperty(fc.string({ minLength: 1, maxLength: 20 }).filter(s => !['refuse', 'copy', 'replace'].includes(s)), async (onConflict) => {
-        const res = await upload(facilitator, `/api/scenarios/import?onConflict=${encodeURIComponent(onConflict)}`, 'x.yaml', stringifyScenario(demo))
+      await fc.assert(fc.asyncProperty(fc.string({
+        minLength: 1,
+        maxLength: 20,
+      }).filter(s => !['refuse', 'copy', 'replace'].includes(s)), async (onConflict) => {
+        const res = await upload(
+          facilitator,
+          `/api/scenarios/import?onConflict=${encodeURIComponent(onConflict)}`,
+          'x.yaml',
+          stringifyScenario(demo),
+        )
         count('queries')
         expectClear4xx(res, `onConflict=${onConflict}`)
       }), { numRuns: RUNS })
@@ -275,7 +548,15 @@ describe('the scenario importer', () => {
           return lines.join('\n')
         }),
         fc.nat().map(n => valid.slice(0, n % valid.length)),
-        fc.constantFrom('!!js/function "function () { return 1 }"', 'a: !!binary aGVsbG8=', 'key: !custom-tag x', '%YAML 2.0\n---\na: 1', 'a: 1\na: 2', '<<: *missing', '- &a [*a]'),
+        fc.constantFrom(
+          '!!js/function "function () { return 1 }"',
+          'a: !!binary aGVsbG8=',
+          'key: !custom-tag x',
+          '%YAML 2.0\n---\na: 1',
+          'a: 1\na: 2',
+          '<<: *missing',
+          '- &a [*a]',
+        ),
       ).filter(text => !parseScenarioYaml(text).ok)
       await fc.assert(fc.asyncProperty(files, async (text) => {
         const res = await importFile('random.yaml', text)
@@ -304,16 +585,43 @@ describe('the scenario importer', () => {
     await untouched(async () => {
       const cases: Array<[string, () => Promise<Answer>, number]> = [
         ['over 1 MiB', () => importFile('big.yaml', `# ${'x'.repeat(1024 * 1024 + 10)}`), 413],
-        ['over 1 MiB declared', () => facilitator.call('POST', '/api/scenarios/import', 'x'.repeat(2 * 1024 * 1024), { 'content-type': 'multipart/form-data; boundary=zzz' }), 413],
+        [
+          'over 1 MiB declared',
+          () => facilitator.call(
+            'POST',
+            '/api/scenarios/import',
+            'x'.repeat(2 * 1024 * 1024),
+            { 'content-type': 'multipart/form-data; boundary=zzz' },
+          ),
+          413,
+        ],
         ['empty', () => importFile('empty.yaml', ''), 400],
         ['not UTF-8', () => importFile('latin1.yaml', new Uint8Array([0x6b, 0x65, 0x79, 0x3a, 0x20, 0xe9, 0xff, 0xfe])), 400],
-        ['JSON instead of a file', () => facilitator.call('POST', '/api/scenarios/import', JSON.stringify({ file: stringifyScenario(demo) }), { 'content-type': 'application/json' }), 400],
+        [
+          'JSON instead of a file',
+          () => facilitator.call(
+            'POST',
+            '/api/scenarios/import',
+            JSON.stringify({ file: stringifyScenario(demo) }),
+            { 'content-type': 'application/json' },
+          ),
+          400,
+        ],
         ['another field name', async () => {
           const form = new FormData()
           form.append('document', new Blob([stringifyScenario(demo)]), 'x.yaml')
           return facilitator.call('POST', '/api/scenarios/import', form)
         }, 400],
-        ['broken multipart', () => facilitator.call('POST', '/api/scenarios/import', '--zzz\r\nContent-Disposition: form-data; name="file"\r\n\r\nabc', { 'content-type': 'multipart/form-data; boundary=zzz' }), 400],
+        [
+          'broken multipart',
+          () => facilitator.call(
+            'POST',
+            '/api/scenarios/import',
+            '--zzz\r\nContent-Disposition: form-data; name="file"\r\n\r\nabc',
+            { 'content-type': 'multipart/form-data; boundary=zzz' },
+          ),
+          400,
+        ],
       ]
       for (const [what, call, status] of cases) {
         const res = await call()
@@ -334,7 +642,10 @@ describe('attachments', () => {
       count('attachments')
       expect(big.status).toBe(413)
       const types = fc.oneof(
-        fc.tuple(fc.constantFrom('x.exe', 'x.html', 'x.svg', 'x.js', 'x.yaml', 'x', 'x.pdf', 'x.png', '.md'), fc.uint8Array({ minLength: 1, maxLength: 2000 }))
+        fc.tuple(
+          fc.constantFrom('x.exe', 'x.html', 'x.svg', 'x.js', 'x.yaml', 'x', 'x.pdf', 'x.png', '.md'),
+          fc.uint8Array({ minLength: 1, maxLength: 2000 }),
+        )
           .filter(([name, bytes]) => !(/\.(md|txt|csv)$/.test(name) && !bytes.includes(0) && (() => {
             try { new TextDecoder('utf-8', { fatal: true }).decode(bytes); return true }
             catch { return false }
@@ -353,8 +664,24 @@ describe('attachments', () => {
 
   it('path traversal in an attachment name never leaves the scenario folder or the storage', async () => {
     const names = fc.oneof(
-      fc.constantFrom('../../etc/passwd.txt', '..\\..\\windows\\win.ini.txt', '/etc/shadow.md', '....//....//x.csv', '..%2F..%2Fx.txt', 'a/../../b.md', '.hidden.md', '..', '.', 'C:\\x\\y.txt', 'x.txt\u0000.pdf', '\u202Etxt.md'),
-      fc.tuple(fc.array(fc.constantFrom('..', '.', '/', '\\', 'a', '%2e', '%2f', '\u0000'), { maxLength: 12 }), fc.constantFrom('.md', '.txt', '.csv')).map(([parts, ext]) => parts.join('') + ext),
+      fc.constantFrom(
+        '../../etc/passwd.txt',
+        '..\\..\\windows\\win.ini.txt',
+        '/etc/shadow.md',
+        '....//....//x.csv',
+        '..%2F..%2Fx.txt',
+        'a/../../b.md',
+        '.hidden.md',
+        '..',
+        '.',
+        'C:\\x\\y.txt',
+        'x.txt\u0000.pdf',
+        '\u202Etxt.md',
+      ),
+      fc.tuple(
+        fc.array(fc.constantFrom('..', '.', '/', '\\', 'a', '%2e', '%2f', '\u0000'), { maxLength: 12 }),
+        fc.constantFrom('.md', '.txt', '.csv'),
+      ).map(([parts, ext]) => parts.join('') + ext),
     )
     const storage = join(server.dir, 'attachments')
     await untouched(async () => {
@@ -370,7 +697,8 @@ describe('attachments', () => {
     }, ['scenario_attachments', 'audit_log'])
     expect((await attach('../../etc/passwd.txt', 'plain text')).json.path).toMatch(/^attachments\/[a-z0-9-]+\/passwd\.txt$/)
     // Only the database folder holds files; the blobs are named by their hash.
-    const walk = (dir: string): string[] => readdirSync(dir).flatMap(n => (statSync(join(dir, n)).isDirectory() ? walk(join(dir, n)) : [join(dir, n)]))
+    const walk = (dir: string): string[] =>
+      readdirSync(dir).flatMap(n => (statSync(join(dir, n)).isDirectory() ? walk(join(dir, n)) : [join(dir, n)]))
     for (const file of walk(server.dir)) expect(file.slice(server.dir.length)).toMatch(/^\/(hard\.sqlite(-wal|-shm)?|attachments\/[0-9a-f]{2}\/[0-9a-f]{64})$/)
     expect(walk(storage).length).toBeGreaterThan(0)
     const rows = (await facilitator.get(`/api/scenarios/${scenarioId}`)).json.attachments as Array<{ id: string; path: string }>
@@ -393,7 +721,10 @@ describe('markdown with HTML in inject bodies', () => {
 
   it('is stored and delivered as the markdown text it is, never turned into HTML by the server', async () => {
     for (const [i, body] of PAYLOADS.entries()) {
-      const res = await facilitator.post(x('/messages'), { teams: ['science'], title: `Payload ${i}`, body, kind: 'message', idempotencyKey: `payload-${i}-0000` })
+      const res = await facilitator.post(
+        x('/messages'),
+        { teams: ['science'], title: `Payload ${i}`, body, kind: 'message', idempotencyKey: `payload-${i}-0000` },
+      )
       count('markdown payloads')
       expect(res.status).toBe(201)
       expect(res.json.event.data.body).toBe(body)

@@ -2,25 +2,13 @@
 // fake SMTP catcher, for the integration tests. `npm test` builds before it runs vitest.
 import { spawn, type ChildProcess } from 'node:child_process'
 import { existsSync, mkdtempSync, rmSync } from 'node:fs'
-import { createServer } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import type { TestProject } from 'vitest/node'
+import { freePort } from './ports'
 
 declare module 'vitest' {
   export interface ProvidedContext { baseUrl: string }
-}
-
-export function freePort(): Promise<number> {
-  return new Promise((ok, fail) => {
-    const srv = createServer()
-    srv.unref()
-    srv.on('error', fail)
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number }
-      srv.close(() => ok(port))
-    })
-  })
 }
 
 let server: ChildProcess | undefined

@@ -1,10 +1,13 @@
 import type { Content, TableCell } from 'pdfmake/interfaces'
-import type { ThreatSummary } from '../../shared/geo/threat'
-import { durationText } from '../../shared/review/decisions'
-import { FINDING_KIND_LABELS, ITEM_STATUS_LABELS, POETE_LABELS, RATING_LABELS, RATINGS } from '../../shared/review/plan'
-import { pdfSafe } from '../../shared/review/pdftext'
-import { ROLE_LABELS, type ExerciseRole } from '../../shared/utils/roles'
-import { renderPdf } from '../review'
+import type { ThreatSummary } from '#shared/geo/threat'
+import { durationText } from '#shared/review/decisions'
+import { FINDING_KIND_LABELS, ITEM_STATUS_LABELS, POETE_LABELS, RATING_LABELS, RATINGS } from '#shared/review/plan'
+import { pdfSafe } from '#shared/review/pdftext'
+import { ROLE_LABELS, type ExerciseRole } from '#shared/utils/roles'
+import { renderPdf } from '../pdf'
+import { threatChartSvg } from './chart'
+import type { ReportData } from './data'
+import { keepHeadingsWithText, paragraphs, PDF_INK, pdfDocument, pdfTable, pdfTime, pt, ratingCell, sectionHeading } from './layout'
 
 type R = ReportData
 

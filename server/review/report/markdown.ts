@@ -1,5 +1,6 @@
 import MarkdownIt from 'markdown-it'
 import type { Content } from 'pdfmake/interfaces'
+import { pt } from './layout'
 
 const md = new MarkdownIt({ html: false, linkify: false, typographer: false })
 type Token = ReturnType<typeof md.parse>[number]

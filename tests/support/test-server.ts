@@ -1,15 +1,15 @@
-// Helpers of the hardening tests that run their own servers (own SQLite file and ports, as
+// Helpers of the integration tests that run their own servers (own SQLite file and ports, as
 // live-restart.test.ts does): spawn, kill, restart, a cookie-keeping client, and a drill scenario
 // built from the demo one.
 import { spawn, type ChildProcess } from 'node:child_process'
 import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
-import { freePort } from './global-setup'
-import { DEMO_PASSWORD } from './helpers'
+import { freePort } from './ports'
+import { DEMO_PASSWORD } from './client'
 import { stringifyScenario, type Scenario } from '../../shared/scenario'
 
-export { drillScenario } from '../../scripts/bench/load'
+export { drillScenario } from './load'
 
 export const ENTRY = resolve(import.meta.dirname, '../..', process.env.BW_OUTPUT_DIR || '.output', 'server/index.mjs')
 
@@ -45,7 +45,7 @@ export class TestServer {
     this.base = `http://127.0.0.1:${port}`
     this.env = {
       ...process.env, PORT: String(port), HOST: '127.0.0.1', NUXT_DB_PATH: this.dbPath,
-      NUXT_SEED_DEMO: this.opts.seed === false ? '' : '1', NUXT_SESSION_PASSWORD: 'hardening-tests-session-password-0123456789ab',
+      NUXT_SEED_DEMO: this.opts.seed === false ? '' : '1', NUXT_SESSION_PASSWORD: 'own-server-tests-session-password-0123456789ab',
       NUXT_FAKE_SMTP_PORT: String(smtp), NUXT_SMTP_HOST: '', NUXT_APP_URL: this.base, DEMO_PASSWORD: '',
       ...this.opts.env,
     }
@@ -59,7 +59,11 @@ export class TestServer {
   async start(): Promise<number> {
     const t0 = Date.now()
     const mode = this.opts.stderr ?? 'inherit'
-    const proc: ChildProcess = spawn(process.execPath, [ENTRY], { env: this.env, stdio: ['ignore', 'ignore', mode === 'capture' ? 'pipe' : mode] })
+    const proc: ChildProcess = spawn(
+      process.execPath,
+      [ENTRY],
+      { env: this.env, stdio: ['ignore', 'ignore', mode === 'capture' ? 'pipe' : mode] },
+    )
     if (mode === 'capture') proc.stderr!.on('data', (chunk: Buffer) => { this.log += chunk.toString() })
     this.proc = proc
     this.starts++
@@ -95,7 +99,12 @@ export class TestServer {
   }
 }
 
-export interface Answer { status: number; json: any; text: string; headers: Headers } // eslint-disable-line @typescript-eslint/no-explicit-any -- tests read any shape
+export interface Answer {
+  status: number
+  json: any // eslint-disable-line @typescript-eslint/no-explicit-any -- tests read any shape
+  text: string
+  headers: Headers
+}
 
 /** A cookie-keeping client of one server. */
 export class Http {

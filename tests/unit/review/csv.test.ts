@@ -36,10 +36,13 @@ describe('guardCsvCell', () => {
   })
 
   it('no cell of a CSV made of guarded cells starts a formula once a spreadsheet parses it back', () => {
-    fc.assert(fc.property(fc.array(fc.array(fc.oneof(formula, fc.string(), fc.integer()), { minLength: 1, maxLength: 6 }), { minLength: 1, maxLength: 6 }), (rows) => {
+    fc.assert(fc.property(fc.array(
+      fc.array(fc.oneof(formula, fc.string(), fc.integer()), { minLength: 1, maxLength: 6 }),
+      { minLength: 1, maxLength: 6 },
+    ), (rows) => {
       const csv = Papa.unparse(rows.map(r => r.map(guardCsvCell)), { newline: '\r\n' })
-      // A single empty cell unparses to an empty document, which parses back to no rows at all: nothing to check.
-      if (csv === '') return
+      // One empty cell makes an empty file, which reads back as no rows at all: nothing to check.
+      fc.pre(csv !== '')
       const back = Papa.parse<string[]>(csv, { newline: '\r\n', delimiter: ',' }).data
       for (const cell of back.flat()) expect(/^[=+\-@\t\r]/.test(cell)).toBe(false)
       expect(back.flat()).toEqual(rows.flat().map(guardCsvCell))

@@ -1,5 +1,5 @@
-import { escapeXml } from '../../shared/geo'
-import { pdfSafe } from '../../shared/review/pdftext'
+import { escapeXml } from '#shared/geo'
+import { pdfSafe } from '#shared/review/pdftext'
 
 export interface ThreatPoint { label: string; impactProbability: number; torino: number }
 

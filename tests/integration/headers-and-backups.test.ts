@@ -3,8 +3,8 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { describe, expect, it } from 'vitest'
-import { freePort } from './global-setup'
-import { as, baseUrl, Client, DEMO, DEMO_PASSWORD } from './helpers'
+import { freePort } from '../support/ports'
+import { as, baseUrl, Client, DEMO, DEMO_PASSWORD } from '../support/client'
 
 describe('security headers and cross-site requests', () => {
   it('every answer carries the security headers', async () => {
@@ -20,24 +20,51 @@ describe('security headers and cross-site requests', () => {
     const c = await as('admin')
     const evil = await c.request('POST', '/api/admin/invitations', { email: 'csrf@example.test', name: 'CSRF' }, { origin: 'https://evil.example' })
     expect(evil.status).toBe(403)
-    const crossSite = await c.request('POST', '/api/admin/invitations', { email: 'csrf@example.test', name: 'CSRF' }, { 'sec-fetch-site': 'cross-site' })
+    const crossSite = await c.request(
+      'POST',
+      '/api/admin/invitations',
+      { email: 'csrf@example.test', name: 'CSRF' },
+      { 'sec-fetch-site': 'cross-site' },
+    )
     expect(crossSite.status).toBe(403)
     const users = (await c.get('/api/admin/users')).json.map((u: { email: string }) => u.email)
     expect(users).not.toContain('csrf@example.test')
-    const same = await c.request('POST', '/api/auth/forgot', { email: 'x@example.test' }, { 'origin': baseUrl(), 'sec-fetch-site': 'same-origin' })
+    const same = await c.request(
+      'POST',
+      '/api/auth/forgot',
+      { email: 'x@example.test' },
+      { 'origin': baseUrl(), 'sec-fetch-site': 'same-origin' },
+    )
     expect(same.status).toBe(202)
   })
 
   it('the session cookie is HttpOnly and SameSite=Lax, and a new sign-in gets a new session', async () => {
-    const res = await fetch(`${baseUrl()}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: DEMO.analyst, password: DEMO_PASSWORD }) })
+    const res = await fetch(
+      `${baseUrl()}/api/auth/login`,
+      {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ email: DEMO.analyst, password: DEMO_PASSWORD }),
+      },
+    )
     const cookie = res.headers.getSetCookie().find(c => c.startsWith('brinkwater-session='))!
     expect(cookie).toMatch(/HttpOnly/i)
     expect(cookie).toMatch(/SameSite=Lax/i)
     const first = cookie.split(';')[0]!
-    const sessionId = async (c: string) => ((await (await fetch(`${baseUrl()}/api/_auth/session`, { headers: { cookie: c } })).json()) as { id?: string }).id
+    const sessionId = async (c: string) => ((await (await fetch(
+      `${baseUrl()}/api/_auth/session`,
+      { headers: { cookie: c } },
+    )).json()) as { id?: string }).id
     const firstId = await sessionId(first)
     expect(firstId).toBeTruthy()
-    const again = await fetch(`${baseUrl()}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'cookie': first }, body: JSON.stringify({ email: DEMO.analyst, password: DEMO_PASSWORD }) })
+    const again = await fetch(
+      `${baseUrl()}/api/auth/login`,
+      {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', 'cookie': first },
+        body: JSON.stringify({ email: DEMO.analyst, password: DEMO_PASSWORD }),
+      },
+    )
     const second = again.headers.getSetCookie().find(c => c.startsWith('brinkwater-session='))!.split(';')[0]!
     expect(await sessionId(second)).not.toBe(firstId)
   })
@@ -62,7 +89,15 @@ describe('backups', () => {
     const [port, smtp] = [await freePort(), await freePort()]
     const entry = resolve(import.meta.dirname, '../..', process.env.BW_OUTPUT_DIR || '.output', 'server/index.mjs')
     const server = spawn(process.execPath, [entry], {
-      env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', NUXT_DB_PATH: join(dir, 'restored.sqlite'), NUXT_SEED_DEMO: '', NUXT_FAKE_SMTP_PORT: String(smtp), NUXT_SESSION_PASSWORD: 'restore-test-session-password-0123456789abcdef' },
+      env: {
+        ...process.env,
+        PORT: String(port),
+        HOST: '127.0.0.1',
+        NUXT_DB_PATH: join(dir, 'restored.sqlite'),
+        NUXT_SEED_DEMO: '',
+        NUXT_FAKE_SMTP_PORT: String(smtp),
+        NUXT_SESSION_PASSWORD: 'restore-test-session-password-0123456789abcdef',
+      },
       stdio: 'ignore',
     })
     try {
@@ -72,7 +107,14 @@ describe('backups', () => {
         catch { /* starting */ }
         await new Promise(r => setTimeout(r, 200))
       }
-      const login = await fetch(`${url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: DEMO.facilitator, password: DEMO_PASSWORD }) })
+      const login = await fetch(
+        `${url}/api/auth/login`,
+        {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify({ email: DEMO.facilitator, password: DEMO_PASSWORD }),
+        },
+      )
       expect(login.status).toBe(200)
       const cookie = login.headers.getSetCookie()[0]!.split(';')[0]!
       const list = await (await fetch(`${url}/api/exercises`, { headers: { cookie } })).json() as Array<{ title: string }>

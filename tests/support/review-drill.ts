@@ -2,7 +2,7 @@
 // solutions published, decisions answered on time and late, two evaluators rating the same six tasks
 // (so that their agreement can be worked out by hand), an observation, and the clock ended.
 import { expect } from 'vitest'
-import { ikey, newLiveExercise, newPerson, type LiveCast, type Person } from './live-helpers'
+import { ikey, newLiveExercise, newPerson, type LiveCast, type Person } from './live'
 
 export interface ReviewDrill extends LiveCast { evaluator2: Person }
 

@@ -1,6 +1,9 @@
-import { DRILL_CAUTION, DRILL_MARKING } from '../../shared/utils/drill'
-import type { User } from '../../shared/types/db'
-import { fileStem, membersByIds } from '../review'
+import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
+import type { User } from '#shared/types/db'
+import { fileStem } from '../exports'
+import { membersByIds } from '../feedback'
+import { reportData } from './data'
+import { reportPdf } from './pdf'
 
 /**
  * E-mails the after-action report to chosen members, the PDF attached (rendered once), one message

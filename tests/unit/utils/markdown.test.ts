@@ -35,7 +35,34 @@ const PAYLOADS = [
   '[a](https://example.org "title\' onmouseover=\'alert(1)")',
 ]
 /** The tags markdown itself makes, with the attributes it sets. */
-const TAGS = new Set(['p', 'strong', 'em', 's', 'a', 'code', 'pre', 'ul', 'ol', 'li', 'h1', 'h2', 'h3', 'h4', 'h5', 'h6', 'blockquote', 'hr', 'br', 'img', 'table', 'thead', 'tbody', 'tr', 'th', 'td'])
+const TAGS = new Set([
+  'p',
+  'strong',
+  'em',
+  's',
+  'a',
+  'code',
+  'pre',
+  'ul',
+  'ol',
+  'li',
+  'h1',
+  'h2',
+  'h3',
+  'h4',
+  'h5',
+  'h6',
+  'blockquote',
+  'hr',
+  'br',
+  'img',
+  'table',
+  'thead',
+  'tbody',
+  'tr',
+  'th',
+  'td',
+])
 const ATTRIBUTES = new Set(['href', 'src', 'alt', 'title', 'start', 'style', 'class'])
 
 /** Every tag of the output, with its attributes (the output is markdown-it's own, well formed). */
@@ -72,7 +99,11 @@ describe('the inject body renderer', () => {
   })
 
   it('stays inert whatever markdown surrounds the payloads', () => {
-    const piece = fc.oneof(fc.constantFrom(...PAYLOADS), fc.string({ maxLength: 40 }), fc.constantFrom('**', '_', '# ', '> ', '- ', '1. ', '\n\n', '|a|b|\n|-|-|\n|', '[', '](', ')', '<', '>', '"', '`'))
+    const piece = fc.oneof(
+      fc.constantFrom(...PAYLOADS),
+      fc.string({ maxLength: 40 }),
+      fc.constantFrom('**', '_', '# ', '> ', '- ', '1. ', '\n\n', '|a|b|\n|-|-|\n|', '[', '](', ')', '<', '>', '"', '`'),
+    )
     fc.assert(fc.property(fc.array(piece, { maxLength: 12 }), (parts) => {
       expectInert(md.render(parts.join('')))
     }), { numRuns: 1000 })
