@@ -1,23 +1,8 @@
 import { fileURLToPath } from 'node:url'
-import stylistic from '@stylistic/eslint-plugin'
 import { createNodeResolver } from 'eslint-plugin-import-x'
 import withNuxt from './.nuxt/eslint.config.mjs'
 
 const root = fileURLToPath(new URL('.', import.meta.url))
-
-// TEMP: lifted at merge. Files other branches edit at the same time keep their old layout until they are merged.
-const STYLE_PENDING = [
-  'shared/hazard/**', 'shared/scenario/**', 'app/components/hazard/**', 'app/components/live/LiveHazard*.vue',
-  'app/components/scenario/ScenarioSites*.vue', 'app/components/review/ReviewReportThreat.vue', 'scenarios/**',
-  'e2e/hazard-brief.spec.ts', 'tests/unit/hazard/**', 'server/review/report/**', 'server/utils/report*.ts',
-]
-const VUE_LAYOUT_RULES = [
-  'array-bracket-spacing', 'arrow-spacing', 'block-spacing', 'block-tag-newline', 'brace-style', 'html-indent', 'html-quotes',
-  'comma-dangle', 'comma-spacing', 'comma-style', 'html-comment-content-spacing', 'key-spacing', 'keyword-spacing',
-  'object-curly-spacing', 'object-property-newline', 'operator-linebreak', 'padding-line-between-blocks', 'quote-props',
-  'space-in-parens', 'template-curly-spacing', 'html-closing-bracket-newline', 'html-closing-bracket-spacing',
-  'mustache-interpolation-spacing', 'no-multi-spaces', 'no-spaces-around-equal-signs-in-attribute',
-]
 
 export default withNuxt(
   { ignores: ['drizzle/**', '.output/**', '.output-*/**', '.nuxt-*/**', '.data/**', 'test-results/**', 'playwright-report/**'] },
@@ -67,15 +52,5 @@ export default withNuxt(
       })],
     },
     rules: { 'import/no-cycle': ['error', { ignoreExternal: true }] },
-  },
-  {
-    // TEMP: lifted at merge (see STYLE_PENDING).
-    name: 'brinkwater/style-pending',
-    files: STYLE_PENDING,
-    rules: {
-      'vue/max-len': 'off',
-      ...Object.fromEntries(Object.keys(stylistic.rules).map(r => [`@stylistic/${r}`, 'off'])),
-      ...Object.fromEntries(VUE_LAYOUT_RULES.map(r => [`vue/${r}`, 'off'])),
-    },
   },
 )

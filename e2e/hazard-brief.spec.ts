@@ -212,7 +212,10 @@ for (const theme of ['dark', 'light'] as const) {
     // Minimal chrome: no site navigation, no chart tabs; nothing scrolls.
     await expect(page.getByRole('navigation', { name: 'Main' })).toHaveCount(0)
     await expect(page.getByTestId('hazard-charts')).toHaveCount(0)
-    const scroll = await page.evaluate(() => [document.documentElement.scrollWidth - innerWidth, document.documentElement.scrollHeight - innerHeight])
+    const scroll = await page.evaluate(() => {
+      const d = document.documentElement
+      return [d.scrollWidth - innerWidth, d.scrollHeight - innerHeight]
+    })
     expect(scroll[0]).toBeLessThanOrEqual(0)
     expect(scroll[1]).toBeLessThanOrEqual(0)
     await shot(page, `brief-wall-${theme}`)

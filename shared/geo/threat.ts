@@ -112,7 +112,10 @@ export interface ThreatSummary {
   laws: TsunamiSourceLaw[]
   bandNote: string
   coast: Array<{
-    siteId: string; name: string; distanceText: string; runUpText: string
+    siteId: string
+    name: string
+    distanceText: string
+    runUpText: string
     band: Record<TsunamiLawKey, { runUpText: string; amplitudeText: string }> | null
   }>
   heatSource: string

@@ -51,7 +51,9 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
   const work = ws.w
   const results: SiteResult[] = sites.map(site => evaluateSite(site, S, work))
   const exposedPopulation = {} as Record<ThresholdKey, number>
-  for (const t of THRESHOLDS) exposedPopulation[t.key] = results.reduce((sum, r) => sum + r.assessment.population * r.assessment.exceedance[t.key], 0)
+  for (const t of THRESHOLDS) {
+    exposedPopulation[t.key] = results.reduce((sum, r) => sum + r.assessment.population * r.assessment.exceedance[t.key], 0)
+  }
 
   let air = 0, tsu = 0
   for (let i = 0; i < n; i++) { if (S.flags[i]! & FLAG_AIRBURST) air++; if (S.flags[i]! & FLAG_TSUNAMI) tsu++ }

@@ -71,7 +71,10 @@ export function swarmIntegralM(breakupAltitudeM: number, dispersionLengthM: numb
   return 2 * H * (x + x * x / 2 + k * k * x * x * x * (1 / 3 + x / 4))
 }
 
-/** Input of `atmosphericEntry`: diameter m, bulk density kg/m³, entry speed km/s, angle from the horizontal degrees, strength Pa (optional). */
+/**
+ * Input of `atmosphericEntry`: diameter m, bulk density kg/m³, entry speed km/s, angle from the horizontal degrees,
+ * strength Pa (optional).
+ */
 export interface EntryInput {
   diameterM: number
   densityKgM3: number
@@ -130,7 +133,8 @@ export interface EntryScratch {
 /** A fresh scratch record for `entryInto` (SI units, see EntryScratch). */
 export function newEntryScratch(): EntryScratch {
   return {
-    strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, surfaceSpeedMS: 0, surfaceDiameterM: 0, sourceAltitudeM: 0, airburst: false,
+    strengthPa: 0, strengthFactor: 0, breakupAltitudeM: NaN, burstAltitudeM: NaN, finalSpeedMS: 0, surfaceSpeedMS: 0,
+    surfaceDiameterM: 0, sourceAltitudeM: 0, airburst: false,
     massKg: 0, energyJ: 0, energyAirJ: 0, energySurfaceJ: 0,
   }
 }

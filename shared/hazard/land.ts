@@ -26,8 +26,12 @@ interface LandPolygon { f: Polygon; w: number; s: number; e: number; n: number }
 interface Tile { cellStart: Int32Array; cellEdges: Int32Array; status: Uint8Array }
 interface LandData {
   polygons: LandPolygon[]
-  ex0: Float64Array; ey0: Float64Array; ex1: Float64Array; ey1: Float64Array
-  tileStart: Int32Array; tileEdges: Int32Array
+  ex0: Float64Array
+  ey0: Float64Array
+  ex1: Float64Array
+  ey1: Float64Array
+  tileStart: Int32Array
+  tileEdges: Int32Array
   tiles: Array<Tile | undefined>
   stamp: Int32Array
   stampNow: number
@@ -82,7 +86,9 @@ function forRange(a: number, b: number, origin: number, step: number, count: num
 }
 
 /** Compressed lists (CSR) of items per bin, from a callback that names the bins of each item. */
-function bucket(items: number, bins: number, each: (k: number, add: (bin: number) => void) => void, ids?: Int32Array): [Int32Array, Int32Array] {
+function bucket(
+  items: number, bins: number, each: (k: number, add: (bin: number) => void) => void, ids?: Int32Array,
+): [Int32Array, Int32Array] {
   const start = new Int32Array(bins + 1)
   for (let k = 0; k < items; k++) each(k, (bin) => { start[bin + 1]!++ })
   for (let b = 0; b < bins; b++) start[b + 1]! += start[b]!

@@ -89,7 +89,13 @@ export function cavityDiameterSI(diameterM: number, densityKgM3: number, speedMS
  *   i.angleDeg, degrees; i.waterDepthM water depth d, m
  * @returns speed at the sea floor, km/s
  */
-export function seafloorSpeedKmS(i: { speedKmS: number; diameterM: number; densityKgM3: number; angleDeg: number; waterDepthM: number }): number {
+export function seafloorSpeedKmS(i: {
+  speedKmS: number
+  diameterM: number
+  densityKgM3: number
+  angleDeg: number
+  waterDepthM: number
+}): number {
   return i.speedKmS * Math.exp(-3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient * i.waterDepthM
     / (2 * i.densityKgM3 * i.diameterM * Math.sin(i.angleDeg * DEG)))
 }
@@ -258,11 +264,20 @@ export interface ShoreProfileInput { openDepthM: number; offshoreDepthM: number;
  * WAVELENGTH_GRID, and the run-up per metre of breaking depth on each segment.
  */
 export interface ShoreProfile {
-  openDepthM: number; offshoreDepthM: number; toeDepthM: number; shelfWidthM: number; cotBeach: number; cotShelf: number; cotSlope: number
+  openDepthM: number
+  offshoreDepthM: number
+  toeDepthM: number
+  shelfWidthM: number
+  cotBeach: number
+  cotShelf: number
+  cotSlope: number
   /** Energy-flux shoaling factor from the open depth to d_s, and to d_t, per grid wavelength. */
-  toOffshore: Float64Array; toToe: Float64Array
+  toOffshore: Float64Array
+  toToe: Float64Array
   /** Run-up per metre of breaking depth, R/d of a breaking wave (H = 0.78 d), on the beach, shelf and continental slope. */
-  rateBeach: number; rateShelf: number; rateSlope: number
+  rateBeach: number
+  rateShelf: number
+  rateSlope: number
 }
 
 /**
@@ -337,7 +352,12 @@ export function toeHeightForRunUpM(p: ShoreProfile, runUpM: number): number {
 
 /** What `tsunamiAtSite` returns: lengths m, speed m/s. */
 export interface SiteWave {
-  cavityDiameterM: number; sourceAmplitudeM: number; offshoreAmplitudeM: number; toeHeightM: number; runUpM: number; mainWaveSpeedMS: number
+  cavityDiameterM: number
+  sourceAmplitudeM: number
+  offshoreAmplitudeM: number
+  toeHeightM: number
+  runUpM: number
+  mainWaveSpeedMS: number
 }
 
 /**
@@ -351,8 +371,14 @@ export interface SiteWave {
  *   i.distanceM from the impact, m; i.lawWeight w in [0, 1] (0: low law, 1: high law); i.profile the site's ShoreProfile
  */
 export function tsunamiAtSite(i: {
-  diameterM: number; densityKgM3: number; surfaceSpeedMS: number; angleDeg: number
-  distanceM: number; lawWeight: number; profile: ShoreProfile; surfaceDiameterM?: number
+  diameterM: number
+  densityKgM3: number
+  surfaceSpeedMS: number
+  angleDeg: number
+  distanceM: number
+  lawWeight: number
+  profile: ShoreProfile
+  surfaceDiameterM?: number
 }): SiteWave {
   const p = i.profile
   const h = p.openDepthM

@@ -57,16 +57,24 @@ export const REC = {
 
 // Module-level copies for the realisation loop: imported bindings are read through accessors in some loaders.
 const O_RIMA = REC.rimA, O_RIMR = REC.rimR, O_RIMLO = REC.rimLo, O_RIMHI = REC.rimHi, O_INVC60 = REC.invC60, O_LAMU = REC.lamU
-const RIM_FACTOR = OCEAN.rimWaveFactor, CAVITY_DEPTH = OCEAN.cavityDepthRatio, TSU_MIN_M = OCEAN.tsunamiMinAmplitudeM, TSU_REF_M = OCEAN.tsunamiReferenceRangeM
+const RIM_FACTOR = OCEAN.rimWaveFactor, CAVITY_DEPTH = OCEAN.cavityDepthRatio
+const TSU_MIN_M = OCEAN.tsunamiMinAmplitudeM, TSU_REF_M = OCEAN.tsunamiReferenceRangeM
 const DRAG_W = 3 * WATER_DENSITY_KGM3 * OCEAN.waterDragCoefficient / 2
 
 /** The realisations: summary columns plus the packed site-loop records. */
 export interface SampleSet {
   n: number
   seaDepthM: number
-  diameterM: Float64Array; massKg: Float64Array; energyMt: Float64Array; surfaceEnergyMt: Float64Array; airEnergyMt: Float64Array
-  burstAltM: Float64Array; cavityM: Float64Array; flags: Uint8Array
-  lon: Float64Array; lat: Float64Array
+  diameterM: Float64Array
+  massKg: Float64Array
+  energyMt: Float64Array
+  surfaceEnergyMt: Float64Array
+  airEnergyMt: Float64Array
+  burstAltM: Float64Array
+  cavityM: Float64Array
+  flags: Uint8Array
+  lon: Float64Array
+  lat: Float64Array
   rec: Float64Array
   counts: { highBurst: number; seafloor: number; sea: number }
 }
@@ -89,7 +97,9 @@ export function allocSamples(capacity: number): SampleSet {
  * size, entry, blast scaling, fireball, seismic source and ocean cavity. Fills S (capacity >= n; every
  * field of every realisation is written, so S may be reused).
  */
-export function drawSamples(solution: OrbitSolution, n: number, seed: number, strengthModel: StrengthModel, S: SampleSet = allocSamples(n)): SampleSet {
+export function drawSamples(
+  solution: OrbitSolution, n: number, seed: number, strengthModel: StrengthModel, S: SampleSet = allocSamples(n),
+): SampleSet {
   S.n = n
   S.seaDepthM = solution.waterDepthM > 0 ? solution.waterDepthM : ASSUMED_DEPTH_M
   const counts = { highBurst: 0, seafloor: 0, sea: 0 }
@@ -120,7 +130,8 @@ export function drawSamples(solution: OrbitSolution, n: number, seed: number, st
     const theta = (a ? rng.truncatedNormal(a.mean, a.sigma, 5, 90) : sampleShoemakerAngleDeg(rng)) * DEG
     entryInto(scr, D, rho, v0, theta, Y)
     const o = REC.size * i
-    corridorPointInto(geo, geo.nominalAlongM + c.alongTrackSigmaKm * 1000 * rng.normal(), (2 * rng.uniform() - 1) * c.halfWidthKm * 1000, R, o)
+    const alongM = geo.nominalAlongM + c.alongTrackSigmaKm * 1000 * rng.normal()
+    corridorPointInto(geo, alongM, (2 * rng.uniform() - 1) * c.halfWidthKm * 1000, R, o)
     const x = R[o]!, y = R[o + 1]!, z = R[o + 2]!
     const lon = Math.atan2(y, x) / DEG, lat = Math.asin(Math.max(-1, Math.min(1, z))) / DEG
     S.lon[i] = lon

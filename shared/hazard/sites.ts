@@ -55,10 +55,20 @@ function coastOf(openDepthM: number, site: Site): Coast {
 
 /** Scratch columns reused from site to site. */
 export interface SiteScratch {
-  dist: Float64Array; op: Float64Array; th: Float64Array; mag: Float64Array
+  dist: Float64Array
+  op: Float64Array
+  th: Float64Array
+  mag: Float64Array
   /** Offshore amplitude and unbroken toe height: mixed laws, low law, high law. */
-  amp: Float64Array; toe: Float64Array; ampLo: Float64Array; toeLo: Float64Array; ampHi: Float64Array; toeHi: Float64Array
-  t1: Float64Array; t2: Float64Array; os: Float64Array
+  amp: Float64Array
+  toe: Float64Array
+  ampLo: Float64Array
+  toeLo: Float64Array
+  ampHi: Float64Array
+  toeHi: Float64Array
+  t1: Float64Array
+  t2: Float64Array
+  os: Float64Array
 }
 /** Per-site working columns for up to n realisations. */
 export function newSiteScratch(n: number): SiteScratch {
@@ -236,7 +246,10 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   tally(TH, tHits)
   tally(RU, rHits)
   const o = w.os
-  const pct = (x: Float64Array, count: number, zeros: number, lo: number, hi: number) => { orderStats(x, count, o, zeros, lo, hi); return toPercentiles(o) }
+  const pct = (x: Float64Array, count: number, zeros: number, lo: number, hi: number) => {
+    orderStats(x, count, o, zeros, lo, hi)
+    return toPercentiles(o)
+  }
   const zero = { p5: 0, p50: 0, p95: 0 }
   // Run-up percentiles are those of the toe height mapped through the site's non-decreasing run-up law.
   const runUpPct = (x: Float64Array) => { orderStats(x, m, o, n - m, hLo, hHi); return toPercentiles(o, runUpOf) }

@@ -36,7 +36,9 @@ function scratchAt(depth: number, size: number): Float64Array {
  * most significant bits that vary in the data; only the buckets that hold wanted ranks are gathered,
  * then sorted when small or selected again in the same way. Exact: the same values as a full sort.
  */
-function selectRanks(x: Float64Array, n: number, ranks: readonly number[], vals: number[], at: number, depth: number, lo = NaN, hi = NaN): void {
+function selectRanks(
+  x: Float64Array, n: number, ranks: readonly number[], vals: number[], at: number, depth: number, lo = NaN, hi = NaN,
+): void {
   const words = new Int32Array(x.buffer, x.byteOffset, 2 * n)
   let kMin = 0x7fffffff, kMax = -0x80000000
   if (lo === lo && hi === hi) {

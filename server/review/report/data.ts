@@ -13,7 +13,10 @@ import { hotwashNotes } from '../notes'
 import { listFindings, listImprovements } from '../plan'
 import { drillDates, exerciseMembers, reviewRecord } from '../review'
 
-/** Events the condensed timeline keeps: the clock, publications, releases, messages and holds (responses, scores and observations have their own sections). */
+/**
+ * Events the condensed timeline keeps: the clock, publications, releases, messages and holds (responses, scores and
+ * observations have their own sections).
+ */
 const CONDENSED = new Set(['clock.changed', 'solution.published', 'inject.released', 'message.sent', 'inject.held'])
 
 function threat(events: readonly StoredEvent[]) {
@@ -22,8 +25,9 @@ function threat(events: readonly StoredEvent[]) {
     const h = d.headline
     return {
       key: d.key, label: d.label, seq: e.seq, publishedAt: new Date(e.scenarioTime).toISOString(), impactTime: d.solution.impactTime,
-      impactProbability: h.impactProbability, probabilityText: h.text.impactProbability, odds: h.text.odds, torino: h.torino, palermo: h.text.palermo,
-      energyText: h.text.energyMt, diameterText: h.text.diameterM, tsunamiProbability: h.tsunamiProbability, airburstProbability: h.airburstProbability,
+      impactProbability: h.impactProbability, probabilityText: h.text.impactProbability, odds: h.text.odds, torino: h.torino,
+      palermo: h.text.palermo, energyText: h.text.energyMt, diameterText: h.text.diameterM,
+      tsunamiProbability: h.tsunamiProbability, airburstProbability: h.airburstProbability,
     }
   })
 }
@@ -35,7 +39,11 @@ function finalHazard(published: readonly SolutionPublishedData[]): ThreatSummary
 }
 
 /** The corridor map of the last published solution with the earlier corridors, as an SVG string (Plex fonts for the PDF). */
-export async function finalMapSvg(scenario: Scenario, published: Array<{ solution: OrbitSolution; assessment: Assessment }>, opts: { width?: number; height?: number; fontFamily?: string } = {}) {
+export async function finalMapSvg(
+  scenario: Scenario,
+  published: Array<{ solution: OrbitSolution; assessment: Assessment }>,
+  opts: { width?: number; height?: number; fontFamily?: string } = {},
+) {
   const last = published.at(-1)
   if (!last) return null
   const { basis, rings } = blastRings(last.assessment)
@@ -58,7 +66,8 @@ function participants(exerciseId: string, scenario: Scenario) {
     const teams = role === 'player' ? scenario.teams.map(t => t.key) : [null]
     for (const teamKey of teams) {
       const people = members.filter(m => m.role === role && (role !== 'player' || m.teamKey === teamKey)).map(m => m.name)
-      if (people.length) groups.push({ role, roleLabel: ROLE_LABELS[role], teamKey, teamName: scenario.teams.find(t => t.key === teamKey)?.name ?? null, people })
+      const teamName = scenario.teams.find(t => t.key === teamKey)?.name ?? null
+      if (people.length) groups.push({ role, roleLabel: ROLE_LABELS[role], teamKey, teamName, people })
     }
   }
   return { groups, total: members.length }
@@ -76,7 +85,10 @@ export async function reportData(exerciseId: string, opts: { map?: boolean; mapF
   return {
     drill: { marking: DRILL_MARKING, caution: DRILL_CAUTION },
     generatedAt: new Date().toISOString(),
-    exercise: { id: exercise.id, title: exercise.title, description: exercise.description, status: exercise.status, createdAt: exercise.createdAt.toISOString(), ...drillDates(events) },
+    exercise: {
+      id: exercise.id, title: exercise.title, description: exercise.description, status: exercise.status,
+      createdAt: exercise.createdAt.toISOString(), ...drillDates(events),
+    },
     scenario: {
       key: scenario.key, title: scenario.title, summary: scenario.summary, clock: scenario.clock,
       objectives: scenario.objectives, teams: scenario.teams, phases: scenario.phases,
@@ -86,7 +98,8 @@ export async function reportData(exerciseId: string, opts: { map?: boolean; mapF
     threat: threat(events),
     hazard: finalHazard(published),
     map: opts.map ? await finalMapSvg(scenario, published, { fontFamily: opts.mapFont }) : null,
-    timeline: timelineRows(events.filter(e => CONDENSED.has(e.type)), actors, scenario).map(r => ({ seq: r.seq, wallTime: r.wallTime, scenarioTime: r.scenarioTime, summary: r.summary, teams: r.teams })),
+    timeline: timelineRows(events.filter(e => CONDENSED.has(e.type)), actors, scenario)
+      .map(r => ({ seq: r.seq, wallTime: r.wallTime, scenarioTime: r.scenarioTime, summary: r.summary, teams: r.teams })),
     eventCount: events.length,
     decisions: decisionSummary(events, scenario, scenarioNow),
     scoring: scoringSummary(events, scenario),

@@ -50,7 +50,9 @@ export function cautionFooter(label: string): DynamicContent {
 }
 
 /** A page frame with marking header, caution footer and the app's fonts and styles. */
-export function pdfDocument(title: string, footerLabel: string, content: Content[], extra: Partial<TDocumentDefinitions> = {}): TDocumentDefinitions {
+export function pdfDocument(
+  title: string, footerLabel: string, content: Content[], extra: Partial<TDocumentDefinitions> = {},
+): TDocumentDefinitions {
   return {
     info: { title: pt(`${DRILL_MARKING} ${title}`), creator: 'Brinkwater', producer: 'Brinkwater', subject: pt(DRILL_CAUTION) },
     pageSize: 'A4', pageMargins: [40, 50, 40, 52],
@@ -63,7 +65,9 @@ export function pdfDocument(title: string, footerLabel: string, content: Content
 }
 
 /** A plain table: header row in muted bold, light rules, the header repeated on every page. */
-export function pdfTable(head: string[], rows: TableCell[][], widths: Array<string | number>, opts: { fontSize?: number; groupRows?: boolean } = {}): ContentTable {
+export function pdfTable(
+  head: string[], rows: TableCell[][], widths: Array<string | number>, opts: { fontSize?: number; groupRows?: boolean } = {},
+): ContentTable {
   const fontSize = opts.fontSize ?? 8.5
   return {
     table: {

@@ -78,7 +78,8 @@ export function markdownToPdf(text: string, fontSize = 10): Content[] {
       case 'bullet_list_close':
       case 'ordered_list_close': {
         const l = lists.pop()
-        if (l) put(l.ordered ? { ol: l.items.map(i => ({ stack: i })), fontSize, margin: [0, 0, 0, 5] } : { ul: l.items.map(i => ({ stack: i })), fontSize, margin: [0, 0, 0, 5] })
+        const items = l ? l.items.map(i => ({ stack: i })) : []
+        if (l) put(l.ordered ? { ol: items, fontSize, margin: [0, 0, 0, 5] } : { ul: items, fontSize, margin: [0, 0, 0, 5] })
         break
       }
       case 'fence':

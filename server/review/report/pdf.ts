@@ -23,8 +23,8 @@ export function pdfMapSvg(svg: string): string {
   )
 }
 
-// svg-to-pdfkit opens SVG fonts (pdfmake passes `options` on to it; its types omit them) by file name outside pdfmake's virtual files; the text then keeps the
-// Plex face already in use, so that warning is noise.
+// svg-to-pdfkit opens SVG fonts (pdfmake passes `options` on to it; its types omit them) by file name outside pdfmake's
+// virtual files; the text then keeps the Plex face already in use, so that warning is noise.
 const SVG_OPTIONS = { warningCallback: (m: string) => { if (!m.includes('failed to open font')) console.warn(m) } }
 
 const fmtPct = (x: number | null) => (x === null ? '—' : `${Math.round(x * 100)} %`)

@@ -7,8 +7,12 @@ function ordered(p: Percentiles): boolean {
 }
 
 function allPercentiles(a: Assessment): Percentiles[] {
-  const top = [a.diameterM, a.massKg, a.energyMt, a.surfaceEnergyMt, a.burstAltitudeKm, a.waterCavityDiameterM].filter((p): p is Percentiles => p !== null)
-  return top.concat(a.sites.flatMap(s => [s.distanceKm, s.overpressureKPa, s.windMS, s.thermalMJM2, s.seismicMagnitude, s.tsunamiAmplitudeM, s.tsunamiArrivalMin, s.tsunamiMainArrivalMin, s.runUpM]))
+  const top = [a.diameterM, a.massKg, a.energyMt, a.surfaceEnergyMt, a.burstAltitudeKm, a.waterCavityDiameterM]
+    .filter((p): p is Percentiles => p !== null)
+  return top.concat(a.sites.flatMap(s => [
+    s.distanceKm, s.overpressureKPa, s.windMS, s.thermalMJM2, s.seismicMagnitude, s.tsunamiAmplitudeM, s.tsunamiArrivalMin,
+    s.tsunamiMainArrivalMin, s.runUpM,
+  ]))
 }
 
 describe('assessSolution (Monte Carlo)', () => {
@@ -31,8 +35,16 @@ describe('assessSolution (Monte Carlo)', () => {
 
   it('orders every percentile triple and keeps probabilities in 0..1', () => {
     for (const p of allPercentiles(a)) expect(ordered(p)).toBe(true)
-    for (const x of [a.airburstProbability, a.oceanImpactProbability, a.tsunamiProbability]) { expect(x).toBeGreaterThanOrEqual(0); expect(x).toBeLessThanOrEqual(1) }
-    for (const s of a.sites) for (const t of THRESHOLDS) { expect(s.exceedance[t.key]).toBeGreaterThanOrEqual(0); expect(s.exceedance[t.key]).toBeLessThanOrEqual(1) }
+    for (const x of [a.airburstProbability, a.oceanImpactProbability, a.tsunamiProbability]) {
+      expect(x).toBeGreaterThanOrEqual(0)
+      expect(x).toBeLessThanOrEqual(1)
+    }
+    for (const s of a.sites) {
+      for (const t of THRESHOLDS) {
+        expect(s.exceedance[t.key]).toBeGreaterThanOrEqual(0)
+        expect(s.exceedance[t.key]).toBeLessThanOrEqual(1)
+      }
+    }
     expect(a.tsunamiProbability).toBeLessThanOrEqual(a.oceanImpactProbability)
   })
 
@@ -51,13 +63,16 @@ describe('assessSolution (Monte Carlo)', () => {
   })
 
   it('sums exposed population as population × exceedance over sites, conditional on impact', () => {
-    for (const t of THRESHOLDS) expect(a.exposedPopulation[t.key]).toBeCloseTo(a.sites.reduce((s, x) => s + x.population * x.exceedance[t.key], 0), 6)
+    for (const t of THRESHOLDS) {
+      expect(a.exposedPopulation[t.key]).toBeCloseTo(a.sites.reduce((s, x) => s + x.population * x.exceedance[t.key], 0), 6)
+    }
   })
 
   it('rates Torino and Palermo from the solution probability and the MEDIAN energy (Binzel 2000; Chesley et al. 2002)', () => {
     const years = (Date.parse(solution.impactTime) - Date.parse(solution.epoch)) / (365.25 * 86_400_000)
     expect(a.torino).toBe(torinoScale({ probability: solution.impactProbability, energyMt: a.energyMt.p50 }))
-    expect(a.palermo).toBeCloseTo(palermoScale({ probability: solution.impactProbability, energyMt: a.energyMt.p50, yearsToImpact: years }), 10)
+    const ps = palermoScale({ probability: solution.impactProbability, energyMt: a.energyMt.p50, yearsToImpact: years })
+    expect(a.palermo).toBeCloseTo(ps, 10)
   })
 
   it('thins the impact points reproducibly to at most 2000, flagged sea and airburst', () => {
@@ -66,7 +81,11 @@ describe('assessSolution (Monte Carlo)', () => {
     expect(big.impactPoints.length).toBeGreaterThan(1000)
     const seaShare = big.impactPoints.filter(p => p[2] & 1).length / big.impactPoints.length
     expect(Math.abs(seaShare - big.oceanImpactProbability)).toBeLessThan(0.05)
-    for (const [lon, lat, f] of big.impactPoints) { expect(Math.abs(lon)).toBeLessThanOrEqual(180); expect(Math.abs(lat)).toBeLessThanOrEqual(90); expect(f & ~3).toBe(0) }
+    for (const [lon, lat, f] of big.impactPoints) {
+      expect(Math.abs(lon)).toBeLessThanOrEqual(180)
+      expect(Math.abs(lat)).toBeLessThanOrEqual(90)
+      expect(f & ~3).toBe(0)
+    }
   })
 
   it('names its limits: tsunami figures are indicative; Chelyabinsk-like bursts are flagged high (Brown et al. 2013, Nature 503)', () => {

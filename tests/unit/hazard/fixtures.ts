@@ -25,5 +25,6 @@ export function demoSites(): Site[] {
     ['sines-velho', -8.87, 37.95, 14_000],
     ['faro-leste', -7.93, 37.01, 65_000],
   ]
-  return raw.map(([id, lon, lat, population]) => siteSchema.parse({ id, name: id, lon, lat, population, offshoreDepthM: 50, beachSlopeDeg: 1.5 }))
+  return raw.map(([id, lon, lat, population]) =>
+    siteSchema.parse({ id, name: id, lon, lat, population, offshoreDepthM: 50, beachSlopeDeg: 1.5 }))
 }

@@ -32,7 +32,8 @@ describe('land or sea (Natural Earth 1:50m land, world-atlas 2)', () => {
     for (let k = 0; k < 300; k++) {
       const ring = rings[Math.floor(rng.uniform() * rings.length) % rings.length]!
       const v = ring[Math.floor(rng.uniform() * ring.length) % ring.length]!
-      points.push([Math.max(-180, Math.min(179.999, v[0]! + 0.4 * (rng.uniform() - 0.5))), Math.max(-89.9, Math.min(89.9, v[1]! + 0.4 * (rng.uniform() - 0.5)))])
+      const lon = Math.max(-180, Math.min(179.999, v[0]! + 0.4 * (rng.uniform() - 0.5)))
+      points.push([lon, Math.max(-89.9, Math.min(89.9, v[1]! + 0.4 * (rng.uniform() - 0.5)))])
     }
     let agree = 0
     for (const p of points) if (isLand(p[0], p[1]) === geoContains(land, p)) agree++

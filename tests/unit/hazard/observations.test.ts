@@ -97,7 +97,9 @@ describe('Tunguska, 30 June 1908', () => {
     const t = atmosphericEntry({ diameterM: 55, densityKgM3: 3000, speedKmS: 15, angleDeg: 45 })
     expect(t.burstAltitudeM! / 1000).toBeGreaterThan(3)
     expect(t.burstAltitudeM! / 1000).toBeLessThan(12)
-    const below = thermalExposureJM2({ energyMt: t.energyMt, airEnergyMt: t.energyAirMt, groundRangeM: 0, burstAltitudeM: t.sourceAltitudeM })
+    const below = thermalExposureJM2({
+      energyMt: t.energyMt, airEnergyMt: t.energyAirMt, groundRangeM: 0, burstAltitudeM: t.sourceAltitudeM,
+    })
     expect(below).toBeGreaterThan(burnThresholdJM2(0.42e6, t.energyMt))
     const r = overpressureRadiusM(t.energyMt, t.sourceAltitudeM, treeFallPa())
     // The model body (7 Mt at 5.9 km) flattens within a factor of 2.5 of the observed area (it is a less energetic body).

@@ -37,17 +37,22 @@ describe('ocean impacts (Collins, Melosh & Marcus 2005, MAPS 40(6); tsunami figu
     const weak = atmosphericEntry({ diameterM: 100, densityKgM3: 3000, speedKmS: 17, angleDeg: 45, strengthPa: 1e5 })
     const strong = atmosphericEntry({ diameterM: 100, densityKgM3: 3000, speedKmS: 17, angleDeg: 45, strengthPa: 1e8 })
     expect(strong.energySurfaceMt / weak.energySurfaceMt).toBeGreaterThan(3)
-    const cavity = (e: typeof weak) => waterCavityDiameterM({ diameterM: 100, densityKgM3: 3000, speedKmS: e.surfaceSpeedKmS, angleDeg: 45 })
+    const cavity = (e: typeof weak) =>
+      waterCavityDiameterM({ diameterM: 100, densityKgM3: 3000, speedKmS: e.surfaceSpeedKmS, angleDeg: 45 })
     expect(cavity(strong)).toBeGreaterThan(cavity(weak))
     // The burst's slow debris cloud (same mass, seven times wider) opens a far smaller cavity than the iron body.
     const q = 50 / stony.surfaceDiameterM
-    const cloud = waterCavityDiameterM({ diameterM: stony.surfaceDiameterM, densityKgM3: 3000 * q ** 3, speedKmS: stony.surfaceSpeedKmS, angleDeg: 45 })
-    expect(cloud).toBeLessThan(0.25 * waterCavityDiameterM({ diameterM: 50, densityKgM3: 7800, speedKmS: iron.surfaceSpeedKmS, angleDeg: 45 }))
+    const cloud = waterCavityDiameterM({
+      diameterM: stony.surfaceDiameterM, densityKgM3: 3000 * q ** 3, speedKmS: stony.surfaceSpeedKmS, angleDeg: 45,
+    })
+    const ironCavity = waterCavityDiameterM({ diameterM: 50, densityKgM3: 7800, speedKmS: iron.surfaceSpeedKmS, angleDeg: 45 })
+    expect(cloud).toBeLessThan(0.25 * ironCavity)
   })
 
   it('slows the body in the water column with C_D = 0.877 (Collins 2005; verified in the EIEP source)', () => {
     // 100 m, 3000 kg/m³, vertical, 4000 m: v exp(-3*1000*0.877*4000/(2*3000*100)) = v * 0.0173 (arithmetic).
-    expect(seafloorSpeedKmS({ speedKmS: 20, diameterM: 100, densityKgM3: 3000, angleDeg: 90, waterDepthM: 4000 })).toBeCloseTo(20 * Math.exp(-17.54), 8)
+    const vsf = seafloorSpeedKmS({ speedKmS: 20, diameterM: 100, densityKgM3: 3000, angleDeg: 90, waterDepthM: 4000 })
+    expect(vsf).toBeCloseTo(20 * Math.exp(-17.54), 8)
   })
 
   it('makes a rim wave of 0.07 D_tcw capped at the depth, decaying as 1/r beyond the cavity radius (EIEP source; Ward & Asphaug 2000, Icarus 145)', () => {

@@ -33,14 +33,18 @@ describe('properties over the input domain', () => {
       }
       const cav = waterCavityDiameterM({ diameterM, densityKgM3: d.densityKgM3, speedKmS: e.surfaceSpeedKmS, angleDeg: d.angleDeg })
       expect(Number.isFinite(cav) && cav >= 0).toBe(true)
-      const vsf = seafloorSpeedKmS({ speedKmS: e.surfaceSpeedKmS, diameterM, densityKgM3: d.densityKgM3, angleDeg: d.angleDeg, waterDepthM: d.depthM })
+      const vsf = seafloorSpeedKmS({
+        speedKmS: e.surfaceSpeedKmS, diameterM, densityKgM3: d.densityKgM3, angleDeg: d.angleDeg, waterDepthM: d.depthM,
+      })
       expect(vsf).toBeGreaterThanOrEqual(0)
       expect(vsf).toBeLessThanOrEqual(e.surfaceSpeedKmS)
       if (cav > 0 && d.depthM > 0) {
         const a = tsunamiAmplitudeAtM({ cavityDiameterM: cav, waterDepthM: d.depthM, distanceM: between(1e3, 5e6) })
         expect(Number.isFinite(a) && a >= 0 && a <= d.depthM).toBe(true)
       }
-      const p = overpressurePa({ energyMt: e.energyAirMt + e.energySurfaceMt, groundRangeM: between(1, 1e6), burstAltitudeM: e.burstAltitudeM ?? 0 })
+      const p = overpressurePa({
+        energyMt: e.energyAirMt + e.energySurfaceMt, groundRangeM: between(1, 1e6), burstAltitudeM: e.burstAltitudeM ?? 0,
+      })
       expect(Number.isFinite(p) && p >= 0).toBe(true)
       expect(Number.isFinite(peakWindMS(p))).toBe(true)
     }

@@ -15,7 +15,14 @@ describe('sampling', () => {
     const rng = new HazardRng(1)
     let s = 0, s2 = 0, lo = 1, hi = 0
     const n = 400_000
-    for (let k = 0; k < n; k++) { const u = rng.uniform(); lo = Math.min(lo, u); hi = Math.max(hi, u); const z = rng.normal(); s += z; s2 += z * z }
+    for (let k = 0; k < n; k++) {
+      const u = rng.uniform()
+      lo = Math.min(lo, u)
+      hi = Math.max(hi, u)
+      const z = rng.normal()
+      s += z
+      s2 += z * z
+    }
     expect(lo).toBeGreaterThan(0)
     expect(hi).toBeLessThanOrEqual(1)
     expect(Math.abs(s / n)).toBeLessThan(0.006)
@@ -24,7 +31,8 @@ describe('sampling', () => {
 
   it('draws albedos from the Wright et al. 2016 mixture with mean 0.1668 (AJ 152, 79: 25.3 % at 0.030, 74.7 % at 0.168)', () => {
     // Mean of the mixture: sqrt(pi/2) (0.253 * 0.030 + 0.747 * 0.168) = 0.1668.
-    expect(Math.sqrt(Math.PI / 2) * (WRIGHT_2016.darkFraction * WRIGHT_2016.darkSigma + (1 - WRIGHT_2016.darkFraction) * WRIGHT_2016.brightSigma)).toBeCloseTo(0.1668, 4)
+    const w = WRIGHT_2016
+    expect(Math.sqrt(Math.PI / 2) * (w.darkFraction * w.darkSigma + (1 - w.darkFraction) * w.brightSigma)).toBeCloseTo(0.1668, 4)
     const rng = new HazardRng(2016)
     const n = 1_000_000
     let s = 0, dark = 0
@@ -47,7 +55,10 @@ describe('sampling', () => {
 })
 
 describe('risk corridor', () => {
-  const corridor = { path: [[-22, 35.2], [-14, 37.4], [-6, 39.4]] as Array<[number, number]>, halfWidthKm: 25, nominal: [-14, 37.4] as [number, number], alongTrackSigmaKm: 180 }
+  const corridor = {
+    path: [[-22, 35.2], [-14, 37.4], [-6, 39.4]] as Array<[number, number]>, halfWidthKm: 25,
+    nominal: [-14, 37.4] as [number, number], alongTrackSigmaKm: 180,
+  }
 
   it('returns the nominal point for zero offsets when the nominal lies on the track (geometry; common practice, no source)', () => {
     const [lon, lat] = sampleSolutionCorridorPoint({ corridor }, 0, 0.5)
