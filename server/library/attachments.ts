@@ -80,7 +80,10 @@ export async function readUpload(event: H3Event, maxBytes: number, what: string)
   }
   let parts
   try { parts = await readMultipartFormData(event) }
-  catch { throw createError({ statusCode: 400, message: 'Send the file as multipart/form-data in a field named "file".' }) }
+  catch (e) {
+    if (isBodyLimitError(e)) throw e
+    throw createError({ statusCode: 400, message: 'Send the file as multipart/form-data in a field named "file".' })
+  }
   const file = parts?.find(p => p.name === 'file' && p.filename !== undefined)
   if (!file) throw createError({
     statusCode: 400,

@@ -1,8 +1,6 @@
 // Security headers on every answer, a Content-Security-Policy, and a same-origin check on every
 // state-changing request (CSRF): browsers send Origin (or Sec-Fetch-Site) with cross-site POST/PUT/PATCH/DELETE.
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
-/** Largest request body read at all: the 5 MiB attachment limit plus room for the multipart envelope. */
-const MAX_BODY_BYTES = 6 * 1024 * 1024
 
 function refuse(): never {
   throw createError({ statusCode: 403, message: 'Cross-site request refused.' })
@@ -21,6 +19,8 @@ export default defineEventHandler((event) => {
   if (Number(getRequestHeader(event, 'content-length') ?? 0) > MAX_BODY_BYTES) {
     throw createError({ statusCode: 413, message: `The request is too large (limit ${MAX_BODY_BYTES / 1024 / 1024} MiB).` })
   }
+  // Chunked bodies declare no length: every read stops at the limit instead (Socket.IO's long-polling reads its own).
+  if (!event.path.startsWith('/socket.io')) limitRequestBody(event)
   const site = getRequestHeader(event, 'sec-fetch-site')
   if (site && site !== 'same-origin' && site !== 'none') refuse()
   const origin = getRequestHeader(event, 'origin')

@@ -1,3 +1,4 @@
+import type { IncomingMessage } from 'node:http'
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
 import { fieldIssues } from '#shared/utils/issues'
@@ -14,6 +15,47 @@ function parseOr400<S extends z.ZodType>(schema: S, value: unknown, what: string
   return result.data
 }
 
+/** Largest request body read at all: the 5 MiB attachment limit plus room for the multipart envelope. */
+export const MAX_BODY_BYTES = 6 * 1024 * 1024
+/** Where h3 looks first for a request's raw body (readRawBody, readBody, readMultipartFormData). */
+const RAW_BODY = Symbol.for('h3RawBody')
+
+/**
+ * Makes every later read of the request body stop at maxBytes, whatever its framing (declared length or chunked): h3
+ * reads the body through the promise it finds under its raw-body symbol, and ours keeps at most maxBytes, then rejects
+ * with 413 and drops the rest as it arrives (memory stays bounded); the answer closes the connection.
+ */
+export function limitRequestBody(event: H3Event, maxBytes = MAX_BODY_BYTES): void {
+  const req = event.node.req as IncomingMessage & { [RAW_BODY]?: Promise<Buffer> }
+  if (req[RAW_BODY]) return
+  const declared = Number(req.headers['content-length'] ?? 0)
+  if (!declared && !/\bchunked\b/i.test(String(req.headers['transfer-encoding'] ?? ''))) return
+  const body = new Promise<Buffer>((resolve, reject) => {
+    const chunks: Buffer[] = []
+    let size = 0
+    let over = false
+    req.on('data', (chunk: Buffer) => {
+      if (over) return
+      size += chunk.length
+      if (size <= maxBytes) { chunks.push(chunk); return }
+      over = true
+      chunks.length = 0
+      setResponseHeader(event, 'Connection', 'close')
+      reject(createError({ statusCode: 413, message: `The request is too large (limit ${maxBytes / 1024 / 1024} MiB).` }))
+    })
+    req.on('end', () => { if (!over) resolve(Buffer.concat(chunks)) })
+    req.on('error', reject)
+  })
+  // A handler that never reads the body must not leave an unhandled rejection behind.
+  body.catch(() => {})
+  req[RAW_BODY] = body
+}
+
+/** True for an h3 error that a body read raised on purpose (the size limit), to pass on unchanged. */
+export function isBodyLimitError(e: unknown): boolean {
+  return typeof e === 'object' && e !== null && (e as { statusCode?: number }).statusCode === 413
+}
+
 const JSON_TYPE = /^application\/(?:[\w.-]+\+)?json\s*(?:;|$)/i
 
 /** The JSON body, validated; a malformed or invalid body → 400 with field-level issues, a body that is not JSON → 415. */
@@ -24,7 +66,10 @@ export async function readValid<S extends z.ZodType>(event: H3Event, schema: S):
   }
   let body: unknown
   try { body = await readBody(event) }
-  catch { throw createError({ statusCode: 400, message: 'The request body is not valid JSON.' }) }
+  catch (e) {
+    if (isBodyLimitError(e)) throw e
+    throw createError({ statusCode: 400, message: 'The request body is not valid JSON.' })
+  }
   return parseOr400(schema, body ?? {}, 'request body')
 }
 
