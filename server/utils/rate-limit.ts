@@ -1,11 +1,23 @@
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible'
 import type { H3Event } from 'h3'
 
-// Consecutive failed sign-ins: 5 per account and address, 30 per address, each over 15 minutes.
+// Sign-in attempts: 5 per account and address, 30 per address, each over 15 minutes. A point is taken BEFORE the
+// password is checked (so parallel guesses cannot all get a check), and given back when the sign-in succeeds (so a
+// room of forty people behind one address can all sign in).
 const perAccount = new RateLimiterMemory({ keyPrefix: 'login-acct', points: 5, duration: 15 * 60 })
 const perAddress = new RateLimiterMemory({ keyPrefix: 'login-ip', points: 30, duration: 15 * 60 })
 
-const clientAddress = (event: H3Event) => getRequestIP(event, { xForwardedFor: serverConfig().trustProxy }) ?? 'unknown'
+/**
+ * The client's address. Behind a trusted proxy (NUXT_TRUST_PROXY=1) it is the right-most X-Forwarded-For entry, the
+ * one the proxy itself added; everything left of it was sent by the client and may be forged.
+ */
+export function clientAddress(event: H3Event): string {
+  if (serverConfig().trustProxy) {
+    const added = String(getRequestHeader(event, 'x-forwarded-for') ?? '').split(',').map(s => s.trim()).filter(Boolean).at(-1)
+    if (added) return added
+  }
+  return event.node.req.socket?.remoteAddress ?? 'unknown'
+}
 
 function tooMany(event: H3Event, msBeforeNext: number): never {
   const seconds = Math.max(1, Math.ceil(msBeforeNext / 1000))
@@ -13,22 +25,21 @@ function tooMany(event: H3Event, msBeforeNext: number): never {
   throw createError({ statusCode: 429, message: `Too many failed sign-ins. Try again in ${Math.ceil(seconds / 60)} min.` })
 }
 
-/** Refuses with 429 and Retry-After while the account or address is locked out. */
-export async function assertLoginAllowed(event: H3Event, email: string): Promise<void> {
-  const ip = clientAddress(event)
-  const [a, b] = await Promise.all([perAccount.get(`${email}|${ip}`), perAddress.get(ip)])
-  if (a && a.remainingPoints <= 0) tooMany(event, a.msBeforeNext)
-  if (b && b.remainingPoints <= 0) tooMany(event, b.msBeforeNext)
-}
-
-export async function recordLoginFailure(event: H3Event, email: string): Promise<void> {
+/** Takes one sign-in attempt for the account and the address, or refuses with 429 and Retry-After when none is left. */
+export async function consumeLoginAttempt(event: H3Event, email: string): Promise<void> {
   const ip = clientAddress(event)
   for (const [limiter, key] of [[perAccount, `${email}|${ip}`], [perAddress, ip]] as const) {
     try { await limiter.consume(key) }
-    catch (e) { if (!(e instanceof RateLimiterRes)) throw e }
+    catch (e) {
+      if (e instanceof RateLimiterRes) tooMany(event, e.msBeforeNext)
+      throw e
+    }
   }
 }
 
+/** A successful sign-in clears the account's failures and gives the address its point back. */
 export async function recordLoginSuccess(event: H3Event, email: string): Promise<void> {
-  await perAccount.delete(`${email}|${clientAddress(event)}`)
+  const ip = clientAddress(event)
+  await perAccount.delete(`${email}|${ip}`)
+  await perAddress.reward(ip, 1)
 }

@@ -1,0 +1,59 @@
+// Sign-in limits that hold under parallel guesses and forged addresses. Own server behind a (simulated) trusted proxy,
+// so that its per-process limits start empty.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { DEMO } from '../support/client'
+import { TestServer } from '../support/test-server'
+
+let server: TestServer
+
+beforeAll(async () => {
+  server = await new TestServer({ stderr: 'ignore', env: { NUXT_TRUST_PROXY: '1' } }).init()
+  await server.start()
+}, 90_000)
+afterAll(async () => { await server?.dispose() })
+
+function guess(email: string, forwardedFor: string, password = 'not-the-password') {
+  return fetch(`${server.base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-forwarded-for': forwardedFor },
+    body: JSON.stringify({ email, password }),
+  }).then(r => r.status)
+}
+
+describe('sign-in limits', () => {
+  it('gives at most 5 of 200 parallel guesses at one account a password check (the rest: 429)', async () => {
+    const statuses = await Promise.all(Array.from({ length: 200 }, () => guess(DEMO.comms, '198.51.100.20')))
+    const checked = statuses.filter(s => s === 401).length
+    expect(checked).toBeGreaterThan(0)
+    expect(checked).toBeLessThanOrEqual(5)
+    expect(statuses.filter(s => s === 429).length).toBe(200 - checked)
+  }, 60_000)
+
+  it('takes the address the trusted proxy added (right-most), so forged left-most addresses do not reset the limit', async () => {
+    // The client forges a fresh address each time; the proxy appends the real one.
+    const statuses: number[] = []
+    for (let k = 0; k < 60; k++) statuses.push(await guess(DEMO.civil, `10.9.${k}.1, 203.0.113.7`))
+    expect(statuses.filter(s => s === 401).length).toBeLessThanOrEqual(5)
+    expect(statuses.at(-1)).toBe(429)
+  }, 60_000)
+
+  it('lets a room of people behind one address sign in: successes give the address its point back', async () => {
+    // 40 sign-ins from one address (a hotel network), more than the 30 attempts an address has.
+    for (let k = 0; k < 40; k++) {
+      expect(await guess(DEMO.facilitator, '192.0.2.55', 'brinkwater-demo')).toBe(200)
+    }
+  }, 60_000)
+
+  it('answers an unknown account after a password check too (no quick "no such account")', async () => {
+    const time = async (email: string) => {
+      const t0 = performance.now()
+      expect(await guess(email, `192.0.2.${email.length}`)).toBe(401)
+      return performance.now() - t0
+    }
+    await time('warm-up@brinkwater.test')
+    const unknown = await time('nobody-here@brinkwater.test')
+    const known = await time(DEMO.evaluator)
+    // Both pay for one password hash; before, the unknown account answered in a few milliseconds.
+    expect(unknown).toBeGreaterThan(known / 4)
+  }, 60_000)
+})
