@@ -42,7 +42,8 @@ export const orbitSolutionSchema = z.object({
   entryAngleDeg: meanSigma(5, 90, 45).optional(),
   /** The risk corridor: ground track, cross-track half-width, nominal point, along-track spread. */
   corridor: z.object({
-    path: z.array(lonLatSchema).min(2),
+    // A drawn ground track: 2 000 points is far more than any corridor needs and keeps a preview quick.
+    path: z.array(lonLatSchema).min(2).max(2000),
     halfWidthKm: z.number().min(0).max(5000),
     nominal: lonLatSchema,
     alongTrackSigmaKm: z.number().min(0).max(20000),
