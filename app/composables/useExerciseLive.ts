@@ -53,10 +53,17 @@ function open(store: ReturnType<typeof useLiveStore>, target: LiveTarget) {
       store.setOffset(serverTime + (t1 - t0) / 2 - t1)
     })
   })
+  // A membership change (role, team) drops this member's sockets: the page reloads to take its new desk. A removal
+  // leaves the page refused with a plain reason.
+  let membership: 'removed' | 'changed' | null = null
+  s.on('live:membership', (m: { change: 'removed' | 'changed' }) => { membership = m.change })
   // The server disconnects a revoked wall link (and a failed join); Socket.IO does not retry those.
   s.on('disconnect', (reason) => {
     store.lost()
     store.status = reason === 'io client disconnect' ? 'closed' : reason === 'io server disconnect' ? 'refused' : 'reconnecting'
+    if (reason !== 'io server disconnect' || !membership) return
+    if (membership === 'changed') window.location.reload()
+    else store.error = 'You are no longer a member of this exercise.'
   })
   s.on('connect_error', (err) => {
     store.lost()

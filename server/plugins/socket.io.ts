@@ -10,7 +10,7 @@ import { rooms } from '#shared/live/visibility'
 import type { LiveReady, LiveView } from '#shared/live/types'
 import { clockNow, findWallToken, latestSeq, liveExercise, setIO, userFromHandshake, visibleEvents } from '~~/server/live'
 
-interface LiveSocketData { exerciseId: string; view: LiveView; lastSeq: number; wallTokenId?: string }
+interface LiveSocketData { exerciseId: string; view: LiveView; lastSeq: number; wallTokenId?: string; userId?: string }
 
 /** The rooms a reader of an exercise joins (the facilitator hears evaluator traffic through control). */
 function roomsOf(exerciseId: string, view: LiveView): string[] {
@@ -47,6 +47,7 @@ function replayFrom(exerciseId: string, lastSeq: number): number {
 function joinLive(socket: Socket, live: LiveSocketData): void {
   socket.join(roomsOf(live.exerciseId, live.view))
   if (live.wallTokenId) socket.join(rooms.wallToken(live.wallTokenId))
+  if (live.userId) socket.join(rooms.member(live.exerciseId, live.userId))
   for (const e of visibleEvents(live.exerciseId, live.view, replayFrom(live.exerciseId, live.lastSeq))) socket.emit('event', e)
   const exercise = liveExercise(useDB(), live.exerciseId)
   const ready: LiveReady = {
@@ -110,7 +111,7 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
           if (isDomainError(err)) return next(new Error('forbidden'))
           throw err
         }
-        socket.data.live = { exerciseId, view: access.view, lastSeq } satisfies LiveSocketData
+        socket.data.live = { exerciseId, view: access.view, lastSeq, userId: user.id } satisfies LiveSocketData
       }
       next()
     }

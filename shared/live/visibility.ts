@@ -97,4 +97,6 @@ export const rooms = {
   evaluators: (exerciseId: string) => `exercise:${exerciseId}:evaluators`,
   wall: (exerciseId: string) => `exercise:${exerciseId}:wall`,
   wallToken: (tokenId: string) => `wall-token:${tokenId}`,
+  /** Every socket of one member in one exercise, whatever their view: dropped when the membership changes. */
+  member: (exerciseId: string, userId: string) => `exercise:${exerciseId}:member:${userId}`,
 }

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { exerciseMemberParams } from '#shared/schemas/scenarios'
 import { assertFacilitatorRemains } from '~~/server/library'
+import { dropMemberSockets } from '~~/server/live'
 
 // The facilitator removes a member; the last facilitator cannot be removed.
 export default defineEventHandler(async (event) => {
@@ -11,6 +12,7 @@ export default defineEventHandler(async (event) => {
   if (current.role === 'facilitator') assertFacilitatorRemains(id, userId)
   useDB().delete(schema.memberships).where(where).run()
   audit(user.id, 'exercise.member.remove', id, { userId })
+  dropMemberSockets(id, userId, 'removed')
   setResponseStatus(event, 204)
   return null
 })

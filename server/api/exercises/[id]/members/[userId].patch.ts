@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { exerciseMemberParams, memberPatchSchema } from '#shared/schemas/scenarios'
 import { assertFacilitatorRemains, checkTeam, getExercise } from '~~/server/library'
+import { dropMemberSockets } from '~~/server/live'
 
 // The facilitator changes a member's role or team.
 export default defineEventHandler(async (event) => {
@@ -13,5 +14,6 @@ export default defineEventHandler(async (event) => {
   if (current.role === 'facilitator' && input.role !== 'facilitator') assertFacilitatorRemains(id, userId)
   useDB().update(schema.memberships).set({ role: input.role, teamKey }).where(where).run()
   audit(user.id, 'exercise.member.change', id, { userId, role: input.role, teamKey })
+  if (current.role !== input.role || current.teamKey !== teamKey) dropMemberSockets(id, userId, 'changed')
   return { userId, role: input.role, teamKey }
 })
