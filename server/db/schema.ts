@@ -23,8 +23,16 @@ export const users = sqliteTable('users', {
   disabled: integer('disabled', { mode: 'boolean' }).notNull().default(false),
   /** May use the scenario library and start exercises (admins always may). */
   canAuthor: integer('can_author', { mode: 'boolean' }).notNull().default(false),
+  /** Sessions carry the generation they were opened under; bumping it (password set or reset) ends them all. */
+  sessionGeneration: integer('session_generation').notNull().default(0),
   ...timestamps,
 }, t => [uniqueIndex('users_email_unique').on(t.email)])
+
+/** Sessions ended by signing out, kept until their cookie would have expired anyway. */
+export const revokedSessions = sqliteTable('revoked_sessions', {
+  sessionId: text('session_id').primaryKey(),
+  expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+})
 
 /** The scenario library: each scenario is one validated document (the YAML file's content). */
 export const scenarios = sqliteTable('scenarios', {

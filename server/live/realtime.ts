@@ -25,9 +25,8 @@ export function dropMemberSockets(exerciseId: string, userId: string, change: Me
   room.disconnectSockets(true)
 }
 
-/** Reads the signed-in user from a raw handshake request's session cookie; null when anonymous. */
+/** The active user of a raw handshake request's live session cookie (see `liveSessionUser`); null otherwise. */
 export async function userFromHandshake(req: IncomingMessage) {
   const event = createEvent(req, new ServerResponse(req))
-  const session = await getUserSession(event)
-  return session.user ?? null
+  return liveSessionUser(await getUserSession(event))
 }

@@ -100,8 +100,7 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
         socket.data.live = { exerciseId: wall.exerciseId, view: { kind: 'wall' }, lastSeq, wallTokenId: wall.id } satisfies LiveSocketData
         return next()
       }
-      const sessionUser = await userFromHandshake(socket.request)
-      const user = sessionUser && activeUser(sessionUser.id)
+      const user = await userFromHandshake(socket.request)
       if (!user) return next(new Error('unauthorized'))
       if (exerciseId) {
         // The same rule as the HTTP routes: the `live.follow` capability of the permission table.

@@ -1,4 +1,5 @@
-import { and, eq } from 'drizzle-orm'
+import { and, eq, lt } from 'drizzle-orm'
+import type { UserSession } from '#auth-utils'
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
 import type { LiveView } from '#shared/live/types'
@@ -12,10 +13,34 @@ export function activeUser(userId: string): User | null {
   return user && !user.disabled ? user : null
 }
 
-/** The signed-in, active user, read fresh from the database. Anonymous or disabled → 401. */
+/** How long a session cookie lives (nuxt.config.ts `session.maxAge`), ms. */
+const sessionMaxAgeMs = () => (Number(useRuntimeConfig().session.maxAge) || 12 * 3600) * 1000
+
+/**
+ * The active user of a session that is still alive: not signed out (its id not revoked) and opened under the user's
+ * current session generation (a password set or reset ends every older session). Null otherwise.
+ */
+export function liveSessionUser(session: Pick<UserSession, 'user' | 'generation'> & { id?: string }): User | null {
+  if (!session.user) return null
+  const user = activeUser(session.user.id)
+  if (!user || (session.generation ?? 0) !== user.sessionGeneration) return null
+  if (session.id && useDB().select({ id: schema.revokedSessions.sessionId }).from(schema.revokedSessions)
+    .where(eq(schema.revokedSessions.sessionId, session.id)).get()) return null
+  return user
+}
+
+/** Ends one session for good: its cookie no longer opens anything, even if kept (sign-out). */
+export function revokeSession(sessionId: string): void {
+  const db = useDB()
+  db.delete(schema.revokedSessions).where(lt(schema.revokedSessions.expiresAt, new Date())).run()
+  db.insert(schema.revokedSessions).values({ sessionId, expiresAt: new Date(Date.now() + sessionMaxAgeMs()) })
+    .onConflictDoNothing().run()
+}
+
+/** The signed-in, active user of a live session, read fresh from the database. Anonymous, disabled, signed out → 401. */
 export async function requireUser(event: H3Event): Promise<User> {
   const session = await requireUserSession(event)
-  const user = activeUser(session.user.id)
+  const user = liveSessionUser(session)
   if (!user) {
     await clearUserSession(event)
     throw createError({ statusCode: 401, message: 'Sign in again.' })
@@ -106,5 +131,5 @@ export async function startFreshSession(event: H3Event, user: User): Promise<voi
   if (header) {
     event.node.req.headers.cookie = header.split(';').map(c => c.trim()).filter(c => !c.startsWith(`${name}=`)).join('; ')
   }
-  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
+  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now(), generation: user.sessionGeneration })
 }

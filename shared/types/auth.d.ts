@@ -7,5 +7,10 @@ declare module '#auth-utils' {
     /** May use the scenario library (admins always may). */
     canAuthor: boolean
   }
+  interface UserSession {
+    loggedInAt?: number
+    /** The user's session generation when this session was opened (see server/utils/auth.ts). */
+    generation?: number
+  }
 }
 export {}
