@@ -1,6 +1,6 @@
 import { readFileSync, readdirSync, existsSync } from 'node:fs'
 import { basename, extname, resolve } from 'node:path'
-import { eq, like, or } from 'drizzle-orm'
+import { and, eq, like, or } from 'drizzle-orm'
 import { parseScenarioYaml, validateScenario } from '#shared/scenario'
 import type { Scenario } from '#shared/scenario'
 import type { ScenarioIssue } from '#shared/scenario/io'
@@ -113,11 +113,23 @@ export function saveScenario(row: ScenarioRow, value: unknown, revision: number,
   if (!checked.ok) scenarioInvalid(checked.errors)
   const doc = checked.scenario
   if (keyTaken(doc.key, row.id)) scenarioInvalid([{ path: 'key', message: `another scenario already has the key "${doc.key}"` }])
-  const updated = useDB().update(schema.scenarios)
-    .set({ key: doc.key, title: doc.title, document: doc, revision: row.revision + 1, updatedBy: user.id })
-    .where(eq(schema.scenarios.id, row.id)).returning().get()
+  // Conditional on the revision, in one IMMEDIATE transaction: of two saves of one revision (two processes on one
+  // file), only one changes the row; the other gets 409.
+  const updated = useDB().transaction(tx => tx.update(schema.scenarios)
+    .set({ key: doc.key, title: doc.title, document: doc, revision: revision + 1, updatedBy: user.id })
+    .where(and(eq(schema.scenarios.id, row.id), eq(schema.scenarios.revision, revision))).returning().get(), { behavior: 'immediate' })
+  if (!updated) throw savedMeanwhile(row.id)
   audit(user.id, 'scenario.save', row.id, { revision: updated.revision })
   return updated
+}
+
+/** 409 for a save that lost the race to another one of the same revision. */
+function savedMeanwhile(id: string) {
+  const now = useDB().select({ revision: schema.scenarios.revision }).from(schema.scenarios).where(eq(schema.scenarios.id, id)).get()
+  return conflict(
+    'Someone saved this scenario after you opened it. Reload to see their changes, then edit again.',
+    { revision: now?.revision ?? null },
+  )
 }
 
 /** Imports a YAML file; `onConflict` decides what happens when its key is already in the library. */
@@ -133,9 +145,11 @@ export function importScenario(text: string, onConflict: 'refuse' | 'copy' | 're
     )
   }
   if (existing && onConflict === 'replace') {
-    const row = useDB().update(schema.scenarios)
+    const row = useDB().transaction(tx => tx.update(schema.scenarios)
       .set({ title: doc.title, document: doc, revision: existing.revision + 1, origin: 'upload', updatedBy: user.id })
-      .where(eq(schema.scenarios.id, existing.id)).returning().get()
+      .where(and(eq(schema.scenarios.id, existing.id), eq(schema.scenarios.revision, existing.revision))).returning().get(),
+    { behavior: 'immediate' })
+    if (!row) throw savedMeanwhile(existing.id)
     audit(user.id, 'scenario.import.replace', row.id, { key: doc.key })
     return row
   }
