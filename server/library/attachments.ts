@@ -70,26 +70,72 @@ export async function sendAttachment(event: H3Event, a: { name: string; contentT
 }
 
 /**
- * Reads one file from a multipart body after checking the declared length, so an oversized
- * upload is refused before it is read. Field name `file`.
+ * The parameters of a Content-Disposition header value (`form-data; name="file"; filename="a;b=c.md"`), with quoted
+ * strings read whole (RFC 7578 / 2616: `;` and `=` inside quotes belong to the value) and `filename*` (RFC 5987).
+ */
+export function dispositionParams(value: string): Record<string, string> {
+  const out: Record<string, string> = {}
+  const re = /;\s*([\w*.-]+)\s*=\s*(?:"((?:[^"\\]|\\.)*)"|([^;]*))/g
+  for (let m = re.exec(value); m; m = re.exec(value)) {
+    const key = m[1]!.toLowerCase()
+    const raw = m[2] !== undefined ? m[2].replace(/\\(.)/g, '$1') : m[3]!.trim()
+    if (key === 'filename*') {
+      const ext = /^([\w-]+)'[\w-]*'(.*)$/.exec(raw)
+      try { out.filename = ext ? decodeURIComponent(ext[2]!) : raw }
+      catch { out.filename = raw }
+    }
+    else if (!(key === 'filename' && out.filename !== undefined)) out[key] = raw
+  }
+  return out
+}
+
+/** The first part named `file` with a file name in a multipart body (binary-safe), or null. */
+function fileField(raw: Buffer, boundary: string): { filename: string; data: Buffer } | null {
+  const delim = Buffer.from(`--${boundary}`)
+  const next = Buffer.from(`\r\n--${boundary}`)
+  let pos = raw.indexOf(delim)
+  while (pos >= 0) {
+    const start = pos + delim.length
+    if (raw[start] === 45 && raw[start + 1] === 45) return null
+    const headEnd = raw.indexOf('\r\n\r\n', start)
+    if (headEnd < 0) return null
+    const end = raw.indexOf(next, headEnd + 4)
+    if (end < 0) return null
+    const head = raw.subarray(start, headEnd).toString('latin1')
+    const line = head.split('\r\n').find(l => /^content-disposition\s*:/i.test(l))
+    // Browsers send file names as UTF-8 bytes inside the quotes.
+    const params = line ? dispositionParams(Buffer.from(line.replace(/^[^:]*:/, ''), 'latin1').toString('utf8')) : {}
+    if (params.name === 'file' && params.filename !== undefined) return { filename: params.filename, data: raw.subarray(headEnd + 4, end) }
+    pos = end + 2
+  }
+  return null
+}
+
+/**
+ * Reads one file from a multipart body after checking the declared length, so an oversized upload is refused before
+ * it is read (and a chunked one at the body limit). Field name `file`; any file name is accepted (callers store a
+ * sanitised copy for paths and downloads).
  */
 export async function readUpload(event: H3Event, maxBytes: number, what: string) {
   const length = Number(getRequestHeader(event, 'content-length') ?? 0)
   if (length > maxBytes + 64 * 1024) {
     throw createError({ statusCode: 413, message: `The ${what} is too large (limit ${Math.round(maxBytes / 1024)} KiB).` })
   }
-  let parts
-  try { parts = await readMultipartFormData(event) }
-  catch (e) {
-    if (isBodyLimitError(e)) throw e
-    throw createError({ statusCode: 400, message: 'Send the file as multipart/form-data in a field named "file".' })
-  }
-  const file = parts?.find(p => p.name === 'file' && p.filename !== undefined)
-  if (!file) throw createError({
+  const noFile = () => createError({
     statusCode: 400,
     message: 'Send the file as multipart/form-data in a field named "file".',
     data: { issues: [{ path: 'file', message: 'Choose a file.' }] },
   })
+  const boundary = /boundary=(?:"([^"]+)"|([^;\s]+))/i.exec(getRequestHeader(event, 'content-type') ?? '')
+  if (!boundary) throw noFile()
+  let raw: Buffer | undefined
+  try { raw = await readRawBody(event, false) }
+  catch (e) {
+    if (isBodyLimitError(e)) throw e
+    throw noFile()
+  }
+  const file = raw ? fileField(raw, boundary[1] ?? boundary[2]!) : null
+  if (!file) throw noFile()
   if (file.data.length > maxBytes) {
     throw createError({ statusCode: 413, message: `The ${what} is too large (limit ${Math.round(maxBytes / 1024)} KiB).` })
   }

@@ -246,6 +246,17 @@ describe('attachments', () => {
     expect((await (await as('science')).get(`/api/exercises/${started.json.id}/attachments/${frozen.id}`)).status).toBe(404)
     expect((await new Client().get(`/api/exercises/${started.json.id}/attachments/${frozen.id}`)).status).toBe(401)
   })
+
+  it('accepts any file name: "=" and ";" inside the quotes belong to the name (kept whole for display, sanitised for the path)', async () => {
+    const fac = await as('facilitator')
+    const created = (await fac.post('/api/scenarios', { title: 'Odd names' })).json
+    for (const [name, path] of [['E=mc2 notes.md', 'E-mc2-notes.md'], ['a;b.md', 'a-b.md'], ['Ría Serena; día 2.md', 'Ri-a-Serena-di-a-2.md']]) {
+      const up = await fac.request('POST', `/api/scenarios/${created.id}/attachments`, fileForm('# Notes', name!, 'text/markdown'))
+      expect(up.status, `${name} → ${up.text}`).toBe(201)
+      expect(up.json.name).toBe(name)
+      expect(up.json.path).toBe(`attachments/odd-names/${path}`)
+    }
+  })
 })
 
 describe('starting an exercise', () => {
