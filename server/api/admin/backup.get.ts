@@ -13,6 +13,11 @@ export default defineEventHandler(async (event) => {
     await rm(dir, { recursive: true, force: true })
     throw e
   }
+  // The client left while the copy was being taken.
+  if (event.node.res.destroyed || event.node.req.destroyed) {
+    await rm(dir, { recursive: true, force: true })
+    return null
+  }
   const { size } = await stat(file)
   audit(admin.id, 'admin.backup', null, { size })
   const stamp = new Date().toISOString().replace(/[:.]/g, '-').slice(0, 19)
@@ -23,6 +28,12 @@ export default defineEventHandler(async (event) => {
     'Cache-Control': 'no-store',
   })
   const stream = createReadStream(file)
-  stream.on('close', () => { void rm(dir, { recursive: true, force: true }) })
+  const cleanup = () => { void rm(dir, { recursive: true, force: true }) }
+  stream.on('close', cleanup)
+  // A download the client gives up on leaves a paused stream that never closes by itself: end it with the response.
+  event.node.res.once('close', () => {
+    stream.destroy()
+    cleanup()
+  })
   return sendStream(event, stream)
 })
