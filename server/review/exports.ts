@@ -1,3 +1,4 @@
+import type { LiveView } from '#shared/live/types'
 import { eq } from 'drizzle-orm'
 import type { H3Event } from 'h3'
 import Papa from 'papaparse'
@@ -10,9 +11,9 @@ import { getExercise } from '../library'
 import { storedEvents } from '../live'
 
 /** The whole timeline of an exercise (every event of its record) as rows. */
-export function exerciseTimeline(exerciseId: string) {
+export function exerciseTimeline(exerciseId: string, view: LiveView = { kind: 'control' }) {
   const exercise = getExercise(exerciseId)
-  const events = storedEvents(exerciseId, { kind: 'control' })
+  const events = storedEvents(exerciseId, view)
   const actors = new Map(useDB().select({ id: schema.users.id, name: schema.users.name }).from(schema.users)
     .innerJoin(schema.memberships, eq(schema.memberships.userId, schema.users.id))
     .where(eq(schema.memberships.exerciseId, exerciseId)).all().map(u => [u.id, u.name]))

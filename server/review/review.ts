@@ -2,15 +2,18 @@ import { eq } from 'drizzle-orm'
 import { decisionSummary } from '#shared/review/decisions'
 import { eventFacets } from '#shared/review/facets'
 import { scoringSummary } from '#shared/review/scoring'
-import type { StoredEvent } from '#shared/live/types'
+import type { LiveView, StoredEvent } from '#shared/live/types'
 import { hasCapability } from '#shared/utils/permissions'
 import { clockNow, liveExercise, storedEvents } from '../live'
 import { exerciseTimeline } from './exports'
 
-/** The exercise with its frozen scenario, its whole record (control view) and the scenario time now. */
-export function reviewRecord(exerciseId: string) {
+/**
+ * The exercise with its frozen scenario, its record as the reader may see it (their own view: an evaluator does not
+ * read the facilitator's holds; the control view by default, for exports) and the scenario time now.
+ */
+export function reviewRecord(exerciseId: string, view: LiveView = { kind: 'control' }) {
   const exercise = liveExercise(useDB(), exerciseId)
-  const events = storedEvents(exerciseId, { kind: 'control' })
+  const events = storedEvents(exerciseId, view)
   const { clock, scenarioNow } = clockNow(exercise)
   return { exercise, events, clock, scenarioNow }
 }
@@ -36,7 +39,7 @@ export function drillDates(events: readonly StoredEvent[]) {
 /** The review desk's frame: the exercise, the parts of its scenario the desk needs, members, the timeline with filter facets, and what the
  * caller may do. */
 export function reviewOverview(exerciseId: string, access: ExerciseAccess) {
-  const { exercise, rows, events } = exerciseTimeline(exerciseId)
+  const { exercise, rows, events } = exerciseTimeline(exerciseId, access.view)
   const { scenario } = liveExercise(useDB(), exerciseId)
   const facets = new Map(events.map(e => [e.seq, eventFacets(e, scenario)]))
   const role = access.membership?.role ?? null
@@ -71,14 +74,14 @@ export function reviewOverview(exerciseId: string, access: ExerciseAccess) {
 }
 
 /** Decisions with response times, per team and per phase. */
-export function reviewDecisions(exerciseId: string) {
-  const { exercise, events, scenarioNow } = reviewRecord(exerciseId)
+export function reviewDecisions(exerciseId: string, view?: LiveView) {
+  const { exercise, events, scenarioNow } = reviewRecord(exerciseId, view)
   return decisionSummary(events, exercise.scenario, scenarioNow)
 }
 
 /** Ratings by objective and capability, observations, agreement between evaluators and their disagreements. */
-export function reviewScoring(exerciseId: string) {
-  const { exercise, events } = reviewRecord(exerciseId)
+export function reviewScoring(exerciseId: string, view?: LiveView) {
+  const { exercise, events } = reviewRecord(exerciseId, view)
   return scoringSummary(events, exercise.scenario)
 }
 
@@ -86,8 +89,8 @@ export function reviewScoring(exerciseId: string) {
  * The record for the replay: every event with its audience (so the page can show each room its share),
  * with the assessments left out of solution publications (fetched one at a time, see `publishedSolution`).
  */
-export function replayRecord(exerciseId: string) {
-  const { exercise, events } = reviewRecord(exerciseId)
+export function replayRecord(exerciseId: string, view?: LiveView) {
+  const { exercise, events } = reviewRecord(exerciseId, view)
   const slim = events.map((e) => {
     if (e.type !== 'solution.published') return e
     const { assessment: _a, ...data } = e.data
