@@ -91,7 +91,7 @@ export async function schedulerTick(
   for (const { id } of ids) {
     if (!proceed()) return
     try { await runDuePaced(id, proceed) }
-    catch (err) { console.error(`[scheduler] exercise ${id}:`, err) }
+    catch (err) { logThrottled(`scheduler:${id}`, `[scheduler] exercise ${id} (repeats are logged once a minute):`, err) }
   }
 }
 

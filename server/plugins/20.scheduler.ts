@@ -13,7 +13,7 @@ export default defineNitroPlugin((nitroApp) => {
     if (busy) return
     busy = true
     try { await scheduleIfHolder(schedulerLeaseMs) }
-    catch (err) { console.error('[scheduler]', err) }
+    catch (err) { logThrottled('scheduler', '[scheduler] (repeats are logged once a minute)', err) }
     finally { busy = false }
   }
   const first = setTimeout(() => void tick(), 0)

@@ -43,3 +43,12 @@ export const invalidFields = (issues: FieldIssue[], message = 'Invalid request b
   new DomainError('invalid', message, { issues })
 /** One rejected field. */
 export const badField = (path: string, message: string) => invalidFields([{ path, message }])
+
+const lastLogged = new Map<string, number>()
+/** Logs an error at most once a minute per key, so that a failing loop (the scheduler's 250 ms tick) cannot flood the log. */
+export function logThrottled(key: string, message: string, err: unknown, everyMs = 60_000): void {
+  const now = Date.now()
+  if (now - (lastLogged.get(key) ?? -Infinity) < everyMs) return
+  lastLogged.set(key, now)
+  console.error(message, err)
+}

@@ -43,3 +43,20 @@ export async function recordLoginSuccess(event: H3Event, email: string): Promise
   await perAccount.delete(`${email}|${ip}`)
   await perAddress.reward(ip, 1)
 }
+
+// Password-reset requests: 3 mails per account an hour (each new link voids the last, so more only annoy), 100 requests
+// per address an hour (a brake on mass mailing). Over a limit the answer stays the same 202, and no mail is sent.
+const resetPerAccount = new RateLimiterMemory({ keyPrefix: 'reset-acct', points: 3, duration: 60 * 60 })
+const resetPerAddress = new RateLimiterMemory({ keyPrefix: 'reset-ip', points: 100, duration: 60 * 60 })
+
+/** Whether a reset mail may go out for this address and account now (takes a point from both). */
+export async function resetAllowed(event: H3Event, email: string): Promise<boolean> {
+  for (const [limiter, key] of [[resetPerAddress, clientAddress(event)], [resetPerAccount, email]] as const) {
+    try { await limiter.consume(key) }
+    catch (e) {
+      if (e instanceof RateLimiterRes) return false
+      throw e
+    }
+  }
+  return true
+}

@@ -2,7 +2,7 @@
 // so that its per-process limits start empty.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO } from '../support/client'
-import { TestServer } from '../support/test-server'
+import { Http, TestServer } from '../support/test-server'
 
 let server: TestServer
 
@@ -55,5 +55,18 @@ describe('sign-in limits', () => {
     const known = await time(DEMO.evaluator)
     // Both pay for one password hash; before, the unknown account answered in a few milliseconds.
     expect(unknown).toBeGreaterThan(known / 4)
+  }, 60_000)
+})
+
+describe('password-reset requests', () => {
+  it('mails one account at most 3 reset links an hour, however many are asked for, with the same answer every time', async () => {
+    const admin = await Http.signIn(server.base, 'admin@brinkwater.test')
+    const statuses = await Promise.all(Array.from({ length: 100 }, () => fetch(`${server.base}/api/auth/forgot`, {
+      method: 'POST', headers: { 'content-type': 'application/json', 'x-forwarded-for': '198.51.100.77' },
+      body: JSON.stringify({ email: DEMO.analyst }),
+    }).then(r => r.status)))
+    expect(new Set(statuses)).toEqual(new Set([202]))
+    const mails = (await admin.get('/api/dev/mailbox')).json as Array<{ to: string; subject: string }>
+    expect(mails.filter(m => m.to.includes(DEMO.analyst) && /reset/i.test(m.subject)).length).toBe(3)
   }, 60_000)
 })

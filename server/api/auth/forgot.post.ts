@@ -1,10 +1,12 @@
 import { eq } from 'drizzle-orm'
 import { forgotSchema } from '#shared/schemas/auth'
 
-// Always the same answer, so the form does not reveal which addresses have accounts.
+// Always the same answer, so the form does not reveal which addresses have accounts; requests over the limits (per
+// address and per account) send nothing.
 export default defineEventHandler(async (event) => {
   const { email } = await readValid(event, forgotSchema)
-  const user = useDB().select().from(schema.users).where(eq(schema.users.email, email)).get()
+  const allowed = await resetAllowed(event, email)
+  const user = allowed ? useDB().select().from(schema.users).where(eq(schema.users.email, email)).get() : undefined
   if (user && !user.disabled) {
     const token = issueAccountToken(user.id, 'reset')
     await sendMail({
