@@ -46,6 +46,13 @@ function open(store: ReturnType<typeof useLiveStore>, target: LiveTarget) {
   })
   s.on('event', (e: LiveEvent) => { if (store.ingest(e)) dispatch(e) })
   s.on('live:ready', (r: LiveReady) => {
+    // After a restore from backup the record is another history: drop what we hold and replay it from the start.
+    if (store.needsResync(r)) {
+      store.reset(targetKey(target))
+      store.status = 'connecting'
+      s.disconnect().connect()
+      return
+    }
     store.ready(r)
     const t0 = Date.now()
     s.emit('ping:clock', ({ serverTime }: { serverTime: number }) => {

@@ -15,6 +15,7 @@ export const useLiveStore = defineStore('live', () => {
   const exerciseId = ref<string | null>(null)
   const status = ref<LiveStatus>('idle')
   const error = ref<string | null>(null)
+  const epoch = ref<string | null>(null)
   const view = ref<LiveView['kind'] | null>(null)
   const teamKey = ref<string | null>(null)
   /** Every event received, ascending by seq, each once (shallow: payloads are not made reactive). */
@@ -41,6 +42,7 @@ export const useLiveStore = defineStore('live', () => {
 
   function reset(id: string | null) {
     exerciseId.value = id
+    epoch.value = null
     status.value = 'idle'
     error.value = null
     view.value = null
@@ -75,8 +77,17 @@ export const useLiveStore = defineStore('live', () => {
     return true
   }
 
+  /**
+   * Whether what we hold belongs to another history of the record than the server's: its epoch changed (a restore
+   * from backup) or its last sequence number went backwards. Then the page must drop everything and replay.
+   */
+  function needsResync(r: LiveReady): boolean {
+    return (epoch.value !== null && !!r.epoch && r.epoch !== epoch.value) || r.lastSeq < lastSeq.value
+  }
+
   /** The server finished replaying: who we are here, the clock now. */
   function ready(r: LiveReady) {
+    epoch.value = r.epoch || null
     view.value = r.view
     teamKey.value = r.teamKey
     if (r.lastSeq >= clockSeq) {
@@ -96,6 +107,6 @@ export const useLiveStore = defineStore('live', () => {
   return {
     exerciseId, status, error, view, teamKey, events, lastSeq, clock, offsetMs, now, lostAt,
     scenarioNow, scenarioNowIso, running, feed, connected,
-    reset, ingest, ready, lost, setOffset, tick,
+    reset, ingest, ready, needsResync, lost, setOffset, tick,
   }
 })

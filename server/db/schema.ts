@@ -28,6 +28,12 @@ export const users = sqliteTable('users', {
   ...timestamps,
 }, t => [uniqueIndex('users_email_unique').on(t.email)])
 
+/** Facts about this database itself; `epoch` names one history of the event record (a restored copy gets a new one). */
+export const appMeta = sqliteTable('app_meta', {
+  key: text('key').primaryKey(),
+  value: text('value').notNull(),
+})
+
 /** Sessions ended by signing out, kept until their cookie would have expired anyway. */
 export const revokedSessions = sqliteTable('revoked_sessions', {
   sessionId: text('session_id').primaryKey(),

@@ -52,7 +52,7 @@ function joinLive(socket: Socket, live: LiveSocketData): void {
   const exercise = liveExercise(useDB(), live.exerciseId)
   const ready: LiveReady = {
     exerciseId: live.exerciseId, view: live.view.kind, teamKey: live.view.kind === 'player' ? live.view.teamKey : null,
-    clock: clockNow(exercise).clock, lastSeq: latestSeq(live.exerciseId), serverTime: Date.now(),
+    clock: clockNow(exercise).clock, lastSeq: latestSeq(live.exerciseId), serverTime: Date.now(), epoch: recordEpoch(),
   }
   socket.emit('live:ready', ready)
 }

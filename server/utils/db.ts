@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto'
 import { mkdirSync } from 'node:fs'
 import { dirname } from 'node:path'
 import Database from 'better-sqlite3'
@@ -38,7 +39,18 @@ export function useSqlite(): Database.Database {
   return sqlite!
 }
 
-/** Applies the drizzle-kit migrations in `drizzle/` (or NUXT_MIGRATIONS_DIR). */
+/** Applies the drizzle-kit migrations in `drizzle/` (or NUXT_MIGRATIONS_DIR), and gives the record an epoch if it has none. */
 export function runMigrations(): void {
   migrate(useDB(), { migrationsFolder: serverConfig().migrationsDir })
+  useSqlite().prepare(`INSERT OR IGNORE INTO app_meta (key, value) VALUES ('epoch', ?)`).run(randomUUID())
+}
+
+/**
+ * The epoch of the event record: the same for every process on this file, changed in every backup copy (see the
+ * backup route), so that pages that followed the live database notice a restore — where sequence numbers start over
+ * from the backup's — and replay from scratch.
+ */
+export function recordEpoch(): string {
+  const row = useSqlite().prepare(`SELECT value FROM app_meta WHERE key = 'epoch'`).get() as { value: string } | undefined
+  return row?.value ?? ''
 }

@@ -195,6 +195,8 @@ export interface LiveReady {
   /** The latest sequence number of the exercise (the replay covered everything up to it). */
   lastSeq: number
   serverTime: number
+  /** The epoch of the event record: a page that saw another one (a restore from backup) replays from scratch. */
+  epoch: string
 }
 
 /** An inject as the live services use it: a scenario inject, or an ad-hoc message's stored definition. */

@@ -1,7 +1,9 @@
+import { randomUUID } from 'node:crypto'
 import { createReadStream } from 'node:fs'
 import { mkdtemp, rm, stat } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
+import Database from 'better-sqlite3'
 
 // A consistent copy of the whole database, taken with SQLite's online backup while the app runs.
 export default defineEventHandler(async (event) => {
@@ -13,6 +15,10 @@ export default defineEventHandler(async (event) => {
     await rm(dir, { recursive: true, force: true })
     throw e
   }
+  // The copy names a new epoch of the record: restored, it tells open pages to replay from scratch.
+  const copy = new Database(file)
+  try { copy.prepare(`INSERT OR REPLACE INTO app_meta (key, value) VALUES ('epoch', ?)`).run(randomUUID()) }
+  finally { copy.close() }
   // The client left while the copy was being taken.
   if (event.node.res.destroyed || event.node.req.destroyed) {
     await rm(dir, { recursive: true, force: true })
