@@ -7,7 +7,7 @@ import { readdirSync } from 'node:fs'
 import { join, relative, resolve } from 'node:path'
 import { io } from 'socket.io-client'
 import { beforeAll, afterAll, describe, expect, it } from 'vitest'
-import { as, baseUrl, Client } from '../support/client'
+import { as, baseUrl, Client, DEMO } from '../support/client'
 import { ikey, newPerson, until } from '../support/live'
 import type { Scenario } from '../../shared/scenario'
 import { HOTWASH_KEYS } from '../../shared/review/plan'
@@ -334,6 +334,8 @@ function routeFiles(): string[] {
 }
 
 const clients = {} as Record<Role, Client>
+/** A second session of each signed-in role, for the sign-out row: a sign-out now ends the session for good. */
+const spare = {} as Partial<Record<Role, Client>>
 const ctx = {} as Ctx
 
 beforeAll(async () => {
@@ -348,6 +350,8 @@ beforeAll(async () => {
   ctx.missing = crypto.randomUUID()
   clients.facilitator = facilitator
   clients.admin = await as('admin')
+  spare.facilitator = await new Client().login(DEMO.facilitator)
+  spare.admin = await new Client().login(DEMO.admin)
   clients.anonymous = new Client()
   clients.wall = new Client()
   for (const [slot, role, teamKey] of [
@@ -360,6 +364,7 @@ beforeAll(async () => {
     const p = await newPerson(`Matrix ${slot}`)
     expect((await facilitator.post(`/api/exercises/${ctx.exerciseId}/members`, { email: p.email, role, teamKey })).status).toBe(201)
     clients[slot] = p.client
+    spare[slot] = await new Client().login(p.email, 'a-long-test-password')
   }
   const outsider = await newPerson('Matrix outsider')
   expect((await facilitator.post(
@@ -367,6 +372,7 @@ beforeAll(async () => {
     { email: outsider.email, role: 'player', teamKey: 'science' },
   )).status).toBe(201)
   clients.outsider = outsider.client
+  spare.outsider = await new Client().login(outsider.email, 'a-long-test-password')
 
   const doc = scenario.document as Scenario
   ctx.released = doc.injects.find(i => !i.contingency)!.key
@@ -395,8 +401,9 @@ describe('the authorisation matrix', () => {
       const method = row.route.split(' ')[0]!
       const { path, body } = row.call(ctx)
       await Promise.all(ROLES.map(async (role) => {
-        const c = clients[role]
-        // Calls never keep cookies here: a logout in the table must not sign the role out.
+        // Calls never keep cookies here, and the sign-out row uses each role's spare session: it must not end the one
+        // the other rows use.
+        const c = (row.route === 'POST auth/logout.post.ts' ? spare[role] : undefined) ?? clients[role]
         const res = await new Client().request(method, path, body, c.cookies.size ? { cookie: c.cookieHeader } : {})
         cells++
         const want = row.expect[role]
