@@ -50,8 +50,12 @@ export function liveSnapshot(exerciseId: string, view: LiveView) {
     sites: scenario.sites,
     injects: feed.injects,
   }
-  if (view.kind === 'player') return base
+  // One union, discriminated by `desk`: the team room's share, the evaluator desk's, the control desk's.
+  if (view.kind === 'player') return { ...base, desk: 'room' as const }
   const staff = { ...base, scores: feed.scores, observations: feed.observations, criteria: scenario.criteria }
-  if (view.kind !== 'control') return staff
-  return { ...staff, schedule: schedule(exercise, feed, scenarioNow), held: feed.held, plannedSolutions: scenario.solutions }
+  if (view.kind !== 'control') return { ...staff, desk: 'evaluate' as const }
+  return {
+    ...staff, desk: 'control' as const,
+    schedule: schedule(exercise, feed, scenarioNow), held: feed.held, plannedSolutions: scenario.solutions,
+  }
 }
