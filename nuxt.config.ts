@@ -16,6 +16,8 @@ export default defineNuxtConfig({
   runtimeConfig: {
     // SQLite file; NUXT_DB_PATH overrides.
     dbPath: '.data/brinkwater.sqlite',
+    // Maintenance: serve reads, refuse every write with 503 (NUXT_DB_READ_ONLY=1), e.g. while the file is copied.
+    dbReadOnly: false,
     migrationsDir: 'drizzle',
     // Scenario files loaded into the library by the seed; NUXT_SCENARIOS_DIR overrides.
     scenariosDir: 'scenarios',

@@ -3,6 +3,8 @@ import { dirname, resolve } from 'node:path'
 /** The server's settings: runtimeConfig (nuxt.config.ts, overridden by NUXT_* environment variables), read once and typed. */
 export interface ServerConfig {
   dbFile: string
+  /** Read-only maintenance: the database answers reads and refuses writes (SQLite query_only). */
+  dbReadOnly: boolean
   migrationsDir: string
   scenariosDir: string
   attachmentsDir: string
@@ -30,6 +32,7 @@ export function serverConfig(): ServerConfig {
   const appUrl = String(c.appUrl)
   config = {
     dbFile,
+    dbReadOnly: flag(c.dbReadOnly),
     migrationsDir: resolve(String(c.migrationsDir)),
     scenariosDir: resolve(String(c.scenariosDir)),
     attachmentsDir: resolve(String(c.attachmentsDir || '') || resolve(dirname(dbFile), 'attachments')),

@@ -43,6 +43,21 @@ export function useSqlite(): Database.Database {
 export function runMigrations(): void {
   migrate(useDB(), { migrationsFolder: serverConfig().migrationsDir })
   useSqlite().prepare(`INSERT OR IGNORE INTO app_meta (key, value) VALUES ('epoch', ?)`).run(randomUUID())
+  if (serverConfig().dbReadOnly) useSqlite().pragma('query_only = ON')
+}
+
+/**
+ * Whether the database takes writes now: rewrites the header's user_version with its own value (a real write, of
+ * nothing). Null when it does; otherwise the SQLite error code (read-only file or folder, disk full, I/O error).
+ */
+export function writeProbe(): string | null {
+  const db = useSqlite()
+  try {
+    const v = Number(db.pragma('user_version', { simple: true })) || 0
+    db.pragma(`user_version = ${v}`)
+    return null
+  }
+  catch (e) { return (e as { code?: string }).code ?? 'SQLITE_ERROR' }
 }
 
 /**

@@ -52,3 +52,19 @@ export function logThrottled(key: string, message: string, err: unknown, everyMs
   lastLogged.set(key, now)
   console.error(message, err)
 }
+
+/** The SQLite error code behind an error (h3 wraps a thrown error as its `cause`), if any. */
+function sqliteCode(err: unknown): string | undefined {
+  const e = err as { code?: unknown; cause?: { code?: unknown } } | null
+  const code = e?.code ?? e?.cause?.code
+  return typeof code === 'string' && code.startsWith('SQLITE_') ? code : undefined
+}
+
+/** True for a database that cannot be written: read-only (file, folder or maintenance), full, or failing I/O. */
+export function isStorageError(err: unknown): boolean {
+  return /^SQLITE_(READONLY|FULL|IOERR|CANTOPEN)/.test(sqliteCode(err) ?? '')
+}
+
+/** What a write hears when the database cannot be written. */
+export const STORAGE_UNAVAILABLE = 'The database cannot be written just now (read-only, full or failing): nothing was saved. '
+  + 'Try again in a few minutes; an administrator has been told in the server log.'

@@ -55,8 +55,8 @@ export class TestServer {
   get pid() { return this.proc?.pid }
   get running() { return !!this.proc && this.proc.exitCode === null && this.proc.signalCode === null }
 
-  /** Starts the server and waits until /api/health answers; returns the milliseconds it took. */
-  async start(): Promise<number> {
+  /** Starts the server and waits until /api/health answers (a degraded 503 counts with `degradedOk`); returns the ms it took. */
+  async start(opts: { degradedOk?: boolean } = {}): Promise<number> {
     const t0 = Date.now()
     const mode = this.opts.stderr ?? 'inherit'
     const proc: ChildProcess = spawn(
@@ -70,7 +70,8 @@ export class TestServer {
     const deadline = Date.now() + 60_000
     for (;;) {
       try {
-        if ((await fetch(`${this.base}/api/health`)).ok) return Date.now() - t0
+        const res = await fetch(`${this.base}/api/health`)
+        if (res.ok || (opts.degradedOk && res.status === 503)) return Date.now() - t0
       }
       catch { /* not up yet */ }
       if (proc.exitCode !== null) throw new Error(`server exited with ${proc.exitCode}`)
