@@ -1,4 +1,7 @@
 // Brinkwater — Nuxt configuration. Runtime settings come from NUXT_* environment variables.
+import { fileURLToPath } from 'node:url'
+import { workerChunks } from './server/build/worker-chunks'
+
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -57,6 +60,8 @@ export default defineNuxtConfig({
     schedulerLeaseMs: 3000,
     // Redis for Socket.IO across several processes (NUXT_REDIS_URL, e.g. redis://127.0.0.1:6379); empty: one process.
     redisUrl: '',
+    // Worker threads for hazard assessments and PDFs (NUXT_WORKER_THREADS); 0: one fewer than the processors, 1 to 4.
+    workerThreads: 0,
   },
   // BW_BUILD_DIR / BW_OUTPUT_DIR let two builds run side by side (e.g. a second working copy's tests).
   buildDir: process.env.BW_BUILD_DIR || '.nuxt',
@@ -70,6 +75,8 @@ export default defineNuxtConfig({
       'async-generator-function',
     ].map(p => `node_modules/${p}/require.mjs`) },
     experimental: { websocket: true },
+    // The worker threads' entry, bundled with the server (server/workers/pool.ts).
+    rollupConfig: { plugins: [workerChunks({ entry: fileURLToPath(new URL('./server/workers/entry.ts', import.meta.url)) })] },
   },
   vite: {
     optimizeDeps: { include: ['socket.io-client', 'dayjs'] },

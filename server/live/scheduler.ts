@@ -38,9 +38,9 @@ function dueNow(exerciseId: string, now: number) {
 }
 
 /** Publishes or releases one due item; false when it was done already (or held since, or the drill ended). */
-function runItem(exerciseId: string, item: DueItem): boolean {
+async function runItem(exerciseId: string, item: DueItem): Promise<boolean> {
   try {
-    if (item.kind === 'solution') publishSolution(exerciseId, item.key, { manual: false })
+    if (item.kind === 'solution') await publishSolution(exerciseId, item.key, { manual: false })
     else if (!injectRows(useDB(), exerciseId).has(item.key)) releaseInject(exerciseId, item.key, { manual: false })
     else return false
     return true
@@ -56,9 +56,9 @@ function runItem(exerciseId: string, item: DueItem): boolean {
  * Publishes the solutions and releases the (non-contingency, unheld) injects of one exercise that
  * are due at its scenario time now, in time order, each exactly once. Returns how many it did.
  */
-export function runDue(exerciseId: string, now = Date.now()): number {
+export async function runDue(exerciseId: string, now = Date.now()): Promise<number> {
   let done = 0
-  for (const item of dueNow(exerciseId, now)) if (runItem(exerciseId, item)) done++
+  for (const item of dueNow(exerciseId, now)) if (await runItem(exerciseId, item)) done++
   return done
 }
 
@@ -66,15 +66,14 @@ const yieldToIO = () => new Promise<void>(resolve => setImmediate(resolve))
 
 /**
  * The scheduler's pass over one exercise: like runDue, but it lets pending I/O run before each item,
- * so that what the previous release emitted reaches the sockets before the next one (a solution's
- * hazard assessment keeps the thread for tens of milliseconds). `proceed` is asked before each item.
+ * so that what the previous release emitted reaches the sockets before the next one. `proceed` is asked before each item.
  */
 export async function runDuePaced(exerciseId: string, proceed: () => boolean = () => true): Promise<number> {
   let done = 0
   for (const item of dueNow(exerciseId, Date.now())) {
     await yieldToIO()
     if (!proceed()) break
-    if (runItem(exerciseId, item)) done++
+    if (await runItem(exerciseId, item)) done++
   }
   return done
 }

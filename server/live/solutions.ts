@@ -1,10 +1,10 @@
 import { createHash } from 'node:crypto'
 import { and, asc, eq } from 'drizzle-orm'
-import { assessSolution } from '#shared/hazard/assess'
 import { assessmentHeadline, hasHazardFields } from '#shared/live/headline'
 import { DRILL, teamsAudience } from '#shared/live/visibility'
 import { type Published, publishedSolutions, rememberAssessment } from './assessments'
 import { injectDef, renderInject } from './injects'
+import { runTask } from '../workers/pool'
 import { liveExercise, liveWrite, type LiveWriter } from './record'
 
 /** Samples of every published assessment (20 000 keeps the 5/50/95 percentiles steady from run to run). */
@@ -52,16 +52,17 @@ function reviseReleased(w: LiveWriter, published: readonly Published[]) {
 /**
  * Publishes an orbit solution: runs the hazard model (PUBLISH_SAMPLES samples, seed from the
  * exercise and solution), stores the assessment on the `solution.published` event, and revises the
- * released injects whose figures change. Exactly once per solution; again → 409.
+ * released injects whose figures change. Exactly once per solution; again → 409. The model runs on a worker thread.
  */
-export function publishSolution(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
+export async function publishSolution(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
   const exercise = liveExercise(useDB(), exerciseId)
   const entry = exercise.scenario.solutions.find(s => s.key === key)
   if (!entry) throw notFound('No such solution in this exercise.')
   const isPublished = (db: DB | Tx) => publishedSolutions(db, exerciseId).some(p => p.key === key)
   if (isPublished(useDB())) throw conflict('This solution was already published.')
   const seed = solutionSeed(exerciseId, key)
-  const assessment = assessSolution(entry.solution, exercise.scenario.sites, { samples: PUBLISH_SAMPLES, seed })
+  // The model runs on a worker thread; the write below checks again that no one published meanwhile.
+  const assessment = await runTask('assess', { solution: entry.solution, sites: exercise.scenario.sites, samples: PUBLISH_SAMPLES, seed })
   return liveWrite(exerciseId, (w) => {
     if (w.exercise.status === 'ended') throw exerciseEnded()
     if (isPublished(w.tx)) throw conflict('This solution was already published.')

@@ -1,4 +1,5 @@
 import { scheduleIfHolder, stopScheduling } from '~~/server/live'
+import { closeWorkers, warmWorkers } from '~~/server/workers/pool'
 
 // The inject scheduler: every schedulerIntervalMs (NUXT_SCHEDULER_INTERVAL_MS) it releases what fell due in running exercises.
 // Several processes may share the database: only the holder of the scheduler lease (a row in
@@ -16,6 +17,8 @@ export default defineNitroPlugin((nitroApp) => {
     catch (err) { logThrottled('scheduler', '[scheduler] (repeats are logged once a minute)', err) }
     finally { busy = false }
   }
+  // The worker threads (assessments, PDFs) start now rather than on the first request that needs them.
+  warmWorkers().catch(err => console.error('[workers] could not start the worker threads:', err))
   const first = setTimeout(() => void tick(), 0)
   const timer = setInterval(() => void tick(), schedulerIntervalMs)
   nitroApp.hooks.hook('close', () => {
@@ -23,5 +26,6 @@ export default defineNitroPlugin((nitroApp) => {
     clearInterval(timer)
     try { stopScheduling() }
     catch (err) { console.error('[scheduler] could not free the lease:', err) }
+    return closeWorkers()
   })
 })

@@ -18,6 +18,8 @@ export interface ServerConfig {
   redisUrl: string
   schedulerIntervalMs: number
   schedulerLeaseMs: number
+  /** Worker threads for assessments and PDFs; 0: one fewer than the processors, 1 to 4. */
+  workerThreads: number
 }
 
 // NUXT_* values arrive parsed ("1" → 1, "true" → true).
@@ -45,6 +47,7 @@ export function serverConfig(): ServerConfig {
     redisUrl: String(c.redisUrl || ''),
     schedulerIntervalMs: Number(c.schedulerIntervalMs) || 250,
     schedulerLeaseMs: Number(c.schedulerLeaseMs) || 3000,
+    workerThreads: Math.max(0, Math.floor(Number(c.workerThreads) || 0)),
   }
   return config
 }

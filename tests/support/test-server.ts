@@ -133,6 +133,7 @@ export class Http {
 
   get(path: string) { return this.call('GET', path) }
   post(path: string, body: unknown = {}) { return this.call('POST', path, body) }
+  put(path: string, body: unknown = {}) { return this.call('PUT', path, body) }
 
   /** Signs in; retries for a few seconds, as the demo seed finishes just after the server answers. */
   static async signIn(base: string, email: string, password = DEMO_PASSWORD) {

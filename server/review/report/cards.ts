@@ -1,66 +1,14 @@
-import type { Content } from 'pdfmake/interfaces'
 import { findHazardFields } from '#shared/scenario/fields'
-import type { Inject, Scenario } from '#shared/scenario/schema'
 import { injectRows, liveExercise } from '../../live'
-import { renderPdf } from '../pdf'
-import { PDF_INK, pdfDocument, pdfTime, pt } from './layout'
-import { markdownToPdf } from './markdown'
-
-/** An unreleased body with each hazard field shown by its name, `[energyMt.p50]`, for the facilitator to fill in. */
-export function bodyWithFieldNames(text: string): string {
-  let out = ''
-  let from = 0
-  for (const f of findHazardFields(text)) {
-    out += `${text.slice(from, f.start)}[${f.path}${f.unit ? ` in ${f.unit}` : ''}]`
-    from = f.end
-  }
-  return (out + text.slice(from)).replaceAll('\\{{', '{{')
-}
-
-// pdfmake reads `width` and `id` on any node; its types list them only for some.
-const box = (): Content => ({ canvas: [{ type: 'rect', x: 0, y: 2, w: 9, h: 9, lineWidth: 0.8, lineColor: PDF_INK.text }], width: 16 }) as Content
-
-const RULE_PT = 22
-const rules = (n: number, id?: string): Content => ({ id, canvas: Array.from({ length: n }, (_, i) => ({ type: 'line' as const, x1: 0, y1: RULE_PT * (i + 1), x2: 515, y2: RULE_PT * (i + 1), lineWidth: 0.5, lineColor: PDF_INK.rule })), margin: [0, 0, 0, 6] }) as Content
-
-interface CardState { released: boolean; body: string; note: string; lines: number }
-
-function card(i: Inject, n: number, total: number, scenario: Scenario, state: CardState): Content[] {
-  const teams = i.teams.map(k => scenario.teams.find(t => t.key === k)?.name ?? k).join(', ')
-  const phase = scenario.phases.find(p => p.key === i.phase)?.title ?? i.phase
-  const decision = i.decision
-  return [
-    { text: pt(`Inject card ${n} of ${total}  ·  ${i.kind}  ·  ${i.key}`), style: 'muted', pageBreak: n > 1 ? 'before' : undefined },
-    // pdfmake's pageBreakBefore hook skips nodes that break before them, so the title carries the card's id.
-    { id: `card-${n}`, text: pt(i.title), fontSize: 17, bold: true, margin: [0, 4, 0, 8] },
-    { table: { widths: [70, '*'], body: [
-      [{ text: 'Scenario time', style: 'th' }, { text: pdfTime(i.at), bold: true }],
-      [{ text: 'Phase', style: 'th' }, pt(phase)],
-      [{ text: 'To', style: 'th' }, pt(teams)],
-      [{ text: 'Figures', style: 'th' }, { text: pt(state.note), fontSize: 8.5, color: PDF_INK.muted }],
-    ] }, layout: 'lightHorizontalLines', margin: [0, 0, 0, 10] },
-    ...markdownToPdf(state.body, 10.5),
-    ...(i.attachments?.length ? [{ text: pt(`Attachments: ${i.attachments.map(a => a.name).join('; ')}`), style: 'muted', margin: [0, 0, 0, 6] } as Content] : []),
-    ...(decision
-      ? [
-          { text: 'Decision', style: 'h2' } as Content,
-          { text: pt(decision.prompt), margin: [0, 0, 0, 4] } as Content,
-          ...(decision.choices ?? []).map(c => ({ columns: [box(), { text: pt(c), width: '*' }], margin: [6, 2, 0, 2] }) as Content),
-          { text: `Answer by ${pdfTime(decision.deadline)} (scenario time).`, bold: true, margin: [0, 6, 0, 0] } as Content,
-        ]
-      : []),
-    { text: decision ? 'Your decision and reasons' : 'Notes', style: 'h2', margin: [0, 12, 0, 0] },
-    { columns: [{ text: 'Team: ______________________', width: '*' }, { text: 'Scenario time: ________________', width: '*' }, { text: 'Signed: ________________', width: '*' }], fontSize: 9, margin: [0, 4, 0, 0] },
-    rules(state.lines, `rules-${n}`),
-  ]
-}
+import { runTask } from '../../workers/pool'
+import { bodyWithFieldNames, type CardState } from './cards-doc'
+import { type ReportData, reportParts } from './data'
 
 /**
  * Printable inject cards: one page per inject of the frozen scenario, in scenario-time order. A
  * released inject shows its body with the figures it carries now; an unreleased one shows the hazard
  * fields by name. Expected actions and contingency conditions never appear (the cards go to players).
- * Laid out twice: the first pass measures where each card's writing space starts, the second fills
- * the rest of its page with ruled lines (at least three).
+ * Rendered in a worker thread (renderCards).
  */
 export async function injectCardsPdf(exerciseId: string): Promise<Buffer> {
   const exercise = liveExercise(useDB(), exerciseId)
@@ -68,7 +16,7 @@ export async function injectCardsPdf(exerciseId: string): Promise<Buffer> {
   const rows = injectRows(useDB(), exerciseId)
   const labels = new Map(scenario.solutions.map(s => [s.key, s.label]))
   const injects = [...scenario.injects].sort((a, b) => Date.parse(a.at) - Date.parse(b.at))
-  const states = injects.map((inj) => {
+  const states: CardState[] = injects.map((inj) => {
     const row = rows.get(inj.key)
     const released = row?.status === 'released' && row.body !== null
     const note = findHazardFields(inj.body).length === 0
@@ -78,21 +26,11 @@ export async function injectCardsPdf(exerciseId: string): Promise<Buffer> {
         : 'Not released yet: hazard figures appear as field names in [brackets]; fill them in from the current hazard brief.'
     return { released, body: released ? row!.body! : bodyWithFieldNames(inj.body), note, lines: 1 }
   })
-  const build = () => {
-    const content = injects.flatMap((inj, idx) => card(inj, idx + 1, injects.length, scenario, states[idx]!))
-    return pdfDocument(`Inject cards: ${exercise.title}`, `Inject cards — ${exercise.title}`, content.length ? content : [{ text: 'This scenario has no injects.' }])
-  }
-  const cardPage = new Map<number, number>()
-  await renderPdf({ ...build(), pageBreakBefore: (node) => {
-    const id = typeof node.id === 'string' ? node.id : ''
-    const n = Number(id.split('-')[1])
-    const at = node.startPosition
-    if (id.startsWith('card-')) cardPage.set(n, at.pageNumber)
-    else if (id.startsWith('rules-')) {
-      const room = at.pageInnerHeight * (1 - at.verticalRatio) - 8
-      states[n - 1]!.lines = at.pageNumber === cardPage.get(n) ? Math.max(3, Math.min(16, Math.floor(room / RULE_PT))) : 3
-    }
-    return false
-  } })
-  return renderPdf(build())
+  return runTask('cards', { title: exercise.title, scenario, injects, states })
+}
+
+/** The after-action report with its map as PDF bytes, drawn and rendered in a worker thread (reportDocument), and its data. */
+export async function reportPdf(exerciseId: string): Promise<{ data: ReportData; pdf: Buffer }> {
+  const { data, mapSource } = reportParts(exerciseId)
+  return { data, pdf: await runTask('report', { data, map: mapSource }) }
 }

@@ -1,6 +1,4 @@
-import { blastRings, defaultView, loadAtlas, renderMapSvg, runUpClass, threatSummary, type ThreatSummary } from '#shared/geo'
-import type { Assessment } from '#shared/hazard/types'
-import type { OrbitSolution } from '#shared/hazard/schema'
+import { threatSummary, type ThreatSummary } from '#shared/geo'
 import type { SolutionPublishedData, StoredEvent } from '#shared/live/types'
 import { decisionSummary } from '#shared/review/decisions'
 import { scoringSummary } from '#shared/review/scoring'
@@ -12,6 +10,7 @@ import { reviewFeedback } from '../feedback'
 import { hotwashNotes } from '../notes'
 import { listFindings, listImprovements } from '../plan'
 import { drillDates, exerciseMembers, reviewRecord } from '../review'
+import { finalMapSvg, type MapSource } from './map'
 
 /**
  * Events the condensed timeline keeps: the clock, publications, releases, messages and holds (responses, scores and
@@ -38,27 +37,6 @@ function finalHazard(published: readonly SolutionPublishedData[]): ThreatSummary
   return last ? threatSummary(last.assessment, last.label) : null
 }
 
-/** The corridor map of the last published solution with the earlier corridors, as an SVG string (Plex fonts for the PDF). */
-export async function finalMapSvg(
-  scenario: Scenario,
-  published: Array<{ solution: OrbitSolution; assessment: Assessment }>,
-  opts: { width?: number; height?: number; fontFamily?: string } = {},
-) {
-  const last = published.at(-1)
-  if (!last) return null
-  const { basis, rings } = blastRings(last.assessment)
-  const view = defaultView(last.solution.corridor)
-  return renderMapSvg({
-    width: opts.width ?? 1000, height: opts.height ?? 580, view, atlas: await loadAtlas(view === 'regional' ? '50m' : '110m'),
-    corridors: published.map(p => p.solution.corridor), impactPoints: last.assessment.impactPoints, rings, ringBasis: basis,
-    sites: scenario.sites.flatMap((s) => {
-      const a = last.assessment.sites.find(x => x.siteId === s.id)
-      return a ? [{ id: s.id, name: s.name, lon: s.lon, lat: s.lat, population: s.population, tone: runUpClass(a) }] : []
-    }),
-    title: 'Risk corridor of the last published solution, earlier corridors dashed', fontFamily: opts.fontFamily,
-  })
-}
-
 function participants(exerciseId: string, scenario: Scenario) {
   const members = exerciseMembers(exerciseId)
   const groups: Array<{ role: string; roleLabel: string; teamKey: string | null; teamName: string | null; people: string[] }> = []
@@ -74,15 +52,15 @@ function participants(exerciseId: string, scenario: Scenario) {
 }
 
 /**
- * Everything the after-action report shows, read from the record and the review tables: the PDF and
- * the printable page are both drawn from it. `map: true` adds the corridor map as SVG.
+ * Everything the after-action report shows, read from the record and the review tables, without the map;
+ * `mapSource` is what the map is drawn from (the PDF's worker thread draws it).
  */
-export async function reportData(exerciseId: string, opts: { map?: boolean; mapFont?: string } = {}) {
+export function reportParts(exerciseId: string) {
   const { exercise, events, scenarioNow } = reviewRecord(exerciseId)
   const { scenario } = exercise
   const actors = new Map(exerciseMembers(exerciseId).map(m => [m.userId, m.name]))
   const published = events.filter(e => e.type === 'solution.published').map(e => e.data as SolutionPublishedData)
-  return {
+  const data = {
     drill: { marking: DRILL_MARKING, caution: DRILL_CAUTION },
     generatedAt: new Date().toISOString(),
     exercise: {
@@ -97,7 +75,7 @@ export async function reportData(exerciseId: string, opts: { map?: boolean; mapF
     participants: participants(exerciseId, scenario),
     threat: threat(events),
     hazard: finalHazard(published),
-    map: opts.map ? await finalMapSvg(scenario, published, { fontFamily: opts.mapFont }) : null,
+    map: null as string | null,
     timeline: timelineRows(events.filter(e => CONDENSED.has(e.type)), actors, scenario)
       .map(r => ({ seq: r.seq, wallTime: r.wallTime, scenarioTime: r.scenarioTime, summary: r.summary, teams: r.teams })),
     eventCount: events.length,
@@ -108,5 +86,19 @@ export async function reportData(exerciseId: string, opts: { map?: boolean; mapF
     feedback: reviewFeedback(exerciseId).summary,
     hotwash: hotwashNotes(exerciseId),
   }
+  const mapSource: MapSource = {
+    sites: scenario.sites,
+    published: published.map(p => ({ solution: p.solution, assessment: p.assessment })),
+  }
+  return { data, mapSource }
 }
-export type ReportData = Awaited<ReturnType<typeof reportData>>
+export type ReportData = ReturnType<typeof reportParts>['data']
+
+/**
+ * Everything the after-action report shows, read from the record and the review tables: the PDF and
+ * the printable page are both drawn from it. `map: true` adds the corridor map as SVG.
+ */
+export async function reportData(exerciseId: string, opts: { map?: boolean; mapFont?: string } = {}): Promise<ReportData> {
+  const { data, mapSource } = reportParts(exerciseId)
+  return { ...data, map: opts.map ? await finalMapSvg(mapSource, { fontFamily: opts.mapFont }) : null }
+}

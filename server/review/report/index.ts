@@ -1,7 +1,9 @@
 // The after-action report: its data, the PDF and inject cards, and the mailing.
 export * from './data'
+export * from './map'
 export * from './pdf'
 export * from './cards'
+export * from './cards-doc'
 export * from './send'
 export * from './chart'
 export * from './layout'

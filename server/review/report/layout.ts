@@ -1,5 +1,5 @@
 import type { Content, ContentTable, DynamicContent, Node, NodeQueries, StyleDictionary, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
-import { pdfSafe } from '#shared/review/pdftext'
+import { breakLongWords, pdfSafe } from '#shared/review/pdftext'
 import { utcText } from '#shared/review/format'
 import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
 
@@ -10,8 +10,8 @@ export const PDF_INK = {
   P: '#1f876b', S: '#0b73a0', M: '#d25d08', U: '#c22f45',
 } as const
 
-/** Text as the embedded fonts can print it (see shared/review/pdftext.ts). */
-export const pt = (s: string | number | null | undefined): string => pdfSafe(s === null || s === undefined ? '' : String(s))
+/** Text as the embedded fonts can print it, long words breakable (see shared/review/pdftext.ts). */
+export const pt = (s: string | number | null | undefined): string => breakLongWords(pdfSafe(s === null || s === undefined ? '' : String(s)))
 
 /** "4 Mar 2031 06:30 UTC". */
 export function pdfTime(iso: string | null | undefined, withYear = true): string {

@@ -1,10 +1,9 @@
-import type { Content, TableCell } from 'pdfmake/interfaces'
+import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import type { ThreatSummary } from '#shared/geo/threat'
 import { durationText } from '#shared/review/decisions'
 import { FINDING_KIND_LABELS, ITEM_STATUS_LABELS, POETE_LABELS, RATING_LABELS, RATINGS } from '#shared/review/plan'
 import { pdfSafe } from '#shared/review/pdftext'
 import { ROLE_LABELS, type ExerciseRole } from '#shared/utils/roles'
-import { renderPdf } from '../pdf'
 import { threatChartSvg } from './chart'
 import type { ReportData } from './data'
 import { keepHeadingsWithText, paragraphs, PDF_INK, pdfDocument, pdfTable, pdfTime, pt, ratingCell, sectionHeading } from './layout'
@@ -260,11 +259,14 @@ function plan(d: R): Content[] {
   ]
 }
 
-/** The after-action report as PDF bytes (pdfmake, the app's IBM Plex fonts; marking, caution and page numbers on every page). */
-export async function reportPdf(d: ReportData): Promise<Buffer> {
+/**
+ * The after-action report as a pdfmake document (the app's IBM Plex fonts; marking, caution and page numbers on every
+ * page). Pure: a worker thread renders it (reportPdf).
+ */
+export function reportDocument(d: ReportData): TDocumentDefinitions {
   const content: Content[] = [
     ...cover(d), ...overview(d), ...objectives(d), ...scenarioSummary(d), ...threatSection(d), ...timeline(d),
     ...decisions(d), ...scores(d), ...observations(d), ...hotwashAndFeedback(d), ...findings(d), ...plan(d),
   ]
-  return renderPdf(pdfDocument(`After-action report: ${d.exercise.title}`, pdfSafe(`After-action report — ${d.exercise.title}`), content, { pageBreakBefore: keepHeadingsWithText }))
+  return pdfDocument(`After-action report: ${d.exercise.title}`, pdfSafe(`After-action report — ${d.exercise.title}`), content, { pageBreakBefore: keepHeadingsWithText })
 }

@@ -2,8 +2,7 @@ import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
 import type { User } from '#shared/types/db'
 import { fileStem } from '../exports'
 import { membersByIds } from '../feedback'
-import { reportData } from './data'
-import { reportPdf } from './pdf'
+import { reportPdf } from './cards'
 
 /**
  * E-mails the after-action report to chosen members, the PDF attached (rendered once), one message
@@ -11,8 +10,7 @@ import { reportPdf } from './pdf'
  */
 export async function sendReport(exerciseId: string, input: { userIds: string[]; message: string }, sender: User) {
   const to = membersByIds(exerciseId, input.userIds)
-  const data = await reportData(exerciseId, { map: true, mapFont: 'Plex' })
-  const pdf = await reportPdf(data)
+  const { data, pdf } = await reportPdf(exerciseId)
   const filename = `${fileStem(data.exercise.title)}-after-action-report.pdf`
   for (const m of to) {
     await sendMail({

@@ -7,6 +7,6 @@ export default defineEventHandler(async (event) => {
   const input = await readValid(event, clockActionSchema)
   const result = changeClock(exerciseId, input, user.id)
   // A jump releases at once what fell due on the way.
-  if (input.action === 'jump') runDue(exerciseId)
+  if (input.action === 'jump') await runDue(exerciseId)
   return result
 })

@@ -6,7 +6,7 @@ import { publishSolution } from '~~/server/live'
 export default defineEventHandler(async (event) => {
   const { exerciseId, user, view } = await requireExerciseAccess(event, 'live.control')
   const { key } = paramsValid(event, solutionParamsSchema)
-  const published = publishSolution(exerciseId, key, { actorId: user.id, manual: true })
+  const published = await publishSolution(exerciseId, key, { actorId: user.id, manual: true })
   setResponseStatus(event, 201)
   return { event: sanitise(published, view) }
 })

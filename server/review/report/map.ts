@@ -1,0 +1,29 @@
+import { blastRings, defaultView, loadAtlas, renderMapSvg, runUpClass } from '#shared/geo'
+import type { OrbitSolution, Site } from '#shared/hazard/schema'
+import type { Assessment } from '#shared/hazard/types'
+
+/** What the report's map is drawn from: the sites and the published solutions with their assessments, in order. */
+export interface MapSource {
+  sites: Site[]
+  published: Array<{ solution: OrbitSolution; assessment: Assessment }>
+}
+
+/** The corridor map of the last published solution with the earlier corridors, as an SVG string (Plex fonts for the PDF). */
+export async function finalMapSvg(
+  { sites, published }: MapSource,
+  opts: { width?: number; height?: number; fontFamily?: string } = {},
+) {
+  const last = published.at(-1)
+  if (!last) return null
+  const { basis, rings } = blastRings(last.assessment)
+  const view = defaultView(last.solution.corridor)
+  return renderMapSvg({
+    width: opts.width ?? 1000, height: opts.height ?? 580, view, atlas: await loadAtlas(view === 'regional' ? '50m' : '110m'),
+    corridors: published.map(p => p.solution.corridor), impactPoints: last.assessment.impactPoints, rings, ringBasis: basis,
+    sites: sites.flatMap((s) => {
+      const a = last.assessment.sites.find(x => x.siteId === s.id)
+      return a ? [{ id: s.id, name: s.name, lon: s.lon, lat: s.lat, population: s.population, tone: runUpClass(a) }] : []
+    }),
+    title: 'Risk corridor of the last published solution, earlier corridors dashed', fontFamily: opts.fontFamily,
+  })
+}
