@@ -62,6 +62,12 @@ export default defineNuxtConfig({
     redisUrl: '',
     // Worker threads for hazard assessments and PDFs (NUXT_WORKER_THREADS); 0: one fewer than the processors, 1 to 4.
     workerThreads: 0,
+    // Writes to one exercise per person and minute (answers, scores, notes, clock, releases…); more → 429 (NUXT_WRITE_LIMIT_PER_MINUTE).
+    writeLimitPerMinute: 120,
+    // Written text (answers, messages, observations, score notes) one exercise's record may hold, MB (NUXT_RECORD_LIMIT_MB).
+    recordLimitMb: 16,
+    // Live connections one person may hold open in one process (tabs, desks, the wall's sign-in); more are refused.
+    socketsPerUser: 12,
   },
   // BW_BUILD_DIR / BW_OUTPUT_DIR let two builds run side by side (e.g. a second working copy's tests).
   buildDir: process.env.BW_BUILD_DIR || '.nuxt',

@@ -80,6 +80,8 @@ export const exercises = sqliteTable('exercises', {
   scenarioId: text('scenario_id').references(() => scenarios.id, { onDelete: 'set null' }),
   /** The copy frozen at start: later edits to the library scenario do not reach this drill. */
   scenario: text('scenario', { mode: 'json' }).$type<Scenario>(),
+  /** Bytes of free text people have written into the event record (answers, messages, notes): held under a cap. */
+  recordBytes: integer('record_bytes').notNull().default(0),
   ...timestamps,
 }, t => [index('exercises_created_by_idx').on(t.createdBy), index('exercises_scenario_idx').on(t.scenarioId)])
 

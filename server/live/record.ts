@@ -61,6 +61,20 @@ function toStored(row: typeof schema.exerciseEvents.$inferSelect): StoredEvent {
   } as StoredEvent
 }
 
+/** Events that carry text people write; their size counts against the record's cap (NUXT_RECORD_LIMIT_MB). */
+export const WRITTEN_TEXT_EVENTS: ReadonlySet<LiveEventType> = new Set(['response.submitted', 'observation.recorded', 'score.recorded', 'message.sent'])
+
+/** Counts a written event's bytes against the exercise's record; 413 (record-full) past the cap, nothing stored. */
+function countWrittenText(tx: Tx, exercise: LiveExercise, e: NewEvent): void {
+  if (!WRITTEN_TEXT_EVENTS.has(e.type)) return
+  const bytes = Buffer.byteLength(JSON.stringify(e.data))
+  const { recordLimitMb } = serverConfig()
+  const { recordBytes } = tx.select({ recordBytes: schema.exercises.recordBytes }).from(schema.exercises)
+    .where(eq(schema.exercises.id, exercise.id)).get()!
+  if (recordBytes + bytes > recordLimitMb * 1024 * 1024) throw recordFull(recordLimitMb)
+  tx.update(schema.exercises).set({ recordBytes: recordBytes + bytes }).where(eq(schema.exercises.id, exercise.id)).run()
+}
+
 function insertEvent(tx: Tx, exerciseId: string, e: NewEvent, wallTime: number, scenarioTime: number): StoredEvent {
   const { next } = tx.select({ next: sql<number>`coalesce(max(${schema.exerciseEvents.seq}), 0) + 1` })
     .from(schema.exerciseEvents).where(eq(schema.exerciseEvents.exerciseId, exerciseId)).get()!
@@ -87,6 +101,7 @@ export function liveWrite<T>(exerciseId: string, work: (w: LiveWriter) => T): T 
     const now = Date.now()
     const scenarioNow = Math.min(scenarioTimeAt(clock, now), bounds.end)
     const append = <E extends LiveEventType>(e: NewEvent<E>) => {
+      countWrittenText(tx, exercise!, e as NewEvent)
       const stored = insertEvent(tx, exerciseId, e as NewEvent, now, e.scenarioTime ?? scenarioNow)
       appended.push(stored)
       return stored as StoredEvent<E>

@@ -30,17 +30,34 @@ function schedule(exercise: LiveExercise, feed: Feed, t: number) {
   }).sort((a, b) => Date.parse(a.at) - Date.parse(b.at))
 }
 
+/** Answers per inject and observations a snapshot carries: the most recent; the live socket brings the rest. */
+export const SNAPSHOT_WINDOW = { responsesPerInject: 30, observations: 300 } as const
+
+/** The recent window of a feed: each inject's latest answers and the latest observations, with how many were left out. */
+function windowed(feed: Feed) {
+  const { responsesPerInject, observations } = SNAPSHOT_WINDOW
+  return {
+    injects: feed.injects.map(i => (i.responses.length > responsesPerInject
+      ? { ...i, responses: i.responses.slice(-responsesPerInject), earlierResponses: i.responses.length - responsesPerInject }
+      : i)),
+    observations: feed.observations.slice(-observations),
+    earlierObservations: Math.max(0, feed.observations.length - observations),
+  }
+}
+
 /**
  * A desk's snapshot of a live exercise, by the reader's view: the clock, phase and current solution
  * for everyone; a player gets its team's released injects (current body, revisions, its responses);
  * evaluators all released traffic with expected actions, scores and observations; the facilitator
- * also the whole schedule with states. Figures carry the drill marking (`drill`).
+ * also the whole schedule with states. Figures carry the drill marking (`drill`). A long drill's snapshot carries
+ * the recent window (SNAPSHOT_WINDOW) of answers and observations and says how many it left out.
  */
 export function liveSnapshot(exerciseId: string, view: LiveView) {
   const exercise = liveExercise(useDB(), exerciseId)
   const { clock, scenarioNow } = clockNow(exercise)
   const feed = foldEvents(visibleEvents(exerciseId, view))
   const { scenario } = exercise
+  const recent = windowed(feed)
   const base = {
     exercise: { id: exercise.id, title: exercise.title, status: exercise.status },
     view: view.kind, teamKey: view.kind === 'player' ? view.teamKey : null,
@@ -48,11 +65,14 @@ export function liveSnapshot(exerciseId: string, view: LiveView) {
     phase: phaseAt(scenario, scenarioNow), phases: scenario.phases, teams: scenario.teams,
     currentSolution: feed.currentSolution, solutions: feed.solutions, drill: DRILL,
     sites: scenario.sites,
-    injects: feed.injects,
+    injects: recent.injects,
   }
   // One union, discriminated by `desk`: the team room's share, the evaluator desk's, the control desk's.
   if (view.kind === 'player') return { ...base, desk: 'room' as const }
-  const staff = { ...base, scores: feed.scores, observations: feed.observations, criteria: scenario.criteria }
+  const staff = {
+    ...base, scores: feed.scores, observations: recent.observations, earlierObservations: recent.earlierObservations,
+    criteria: scenario.criteria,
+  }
   if (view.kind !== 'control') return { ...staff, desk: 'evaluate' as const }
   return {
     ...staff, desk: 'control' as const,

@@ -6,9 +6,9 @@ import { Redis } from 'ioredis'
 import type { Socket } from 'socket.io'
 import { and, eq, gte, lte, min } from 'drizzle-orm'
 import { liveAuthSchema } from '#shared/schemas/live'
-import { rooms } from '#shared/live/visibility'
+import { rooms, sanitise } from '#shared/live/visibility'
 import type { LiveReady, LiveView } from '#shared/live/types'
-import { clockNow, findWallToken, latestSeq, liveExercise, setIO, userFromHandshake, visibleEvents } from '~~/server/live'
+import { clockNow, findWallToken, latestSeq, liveExercise, setIO, storedEvents, userFromHandshake } from '~~/server/live'
 
 interface LiveSocketData { exerciseId: string; view: LiveView; lastSeq: number; wallTokenId?: string; userId?: string }
 
@@ -43,12 +43,31 @@ function replayFrom(exerciseId: string, lastSeq: number): number {
   return Math.max(0, (first?.seq ?? lastSeq + 1) - 1)
 }
 
-/** Joins the reader's rooms, replays what it missed after lastSeq and says it is ready: all in one tick, so no event falls between. */
-function joinLive(socket: Socket, live: LiveSocketData): void {
+/** Events a replay sends before it lets other work run (a long record must not hold the server). */
+const REPLAY_PAGE = 250
+
+/**
+ * Replays what the reader missed after lastSeq, joins its rooms and says it is ready. A long record goes out
+ * in pages with other work let in between; the last page, the joins and the ready message share one tick, so no
+ * live event falls between the replay and the rooms.
+ */
+async function joinLive(socket: Socket, live: LiveSocketData): Promise<void> {
+  // The member room only serves to drop the socket when the membership changes: joined first, it covers the replay too.
+  if (live.userId) socket.join(rooms.member(live.exerciseId, live.userId))
+  let since = replayFrom(live.exerciseId, live.lastSeq)
+  for (;;) {
+    const page = storedEvents(live.exerciseId, live.view, since, REPLAY_PAGE)
+    for (const e of page) {
+      const reader = sanitise(e, live.view)
+      if (reader) socket.emit('event', reader)
+    }
+    if (page.length) since = page.at(-1)!.seq
+    if (page.length < REPLAY_PAGE) break
+    await new Promise<void>(resolve => setImmediate(resolve))
+    if (!socket.connected) return
+  }
   socket.join(roomsOf(live.exerciseId, live.view))
   if (live.wallTokenId) socket.join(rooms.wallToken(live.wallTokenId))
-  if (live.userId) socket.join(rooms.member(live.exerciseId, live.userId))
-  for (const e of visibleEvents(live.exerciseId, live.view, replayFrom(live.exerciseId, live.lastSeq))) socket.emit('event', e)
   const exercise = liveExercise(useDB(), live.exerciseId)
   const ready: LiveReady = {
     exerciseId: live.exerciseId, view: live.view.kind, teamKey: live.view.kind === 'player' ? live.view.teamKey : null,
@@ -56,6 +75,9 @@ function joinLive(socket: Socket, live: LiveSocketData): void {
   }
   socket.emit('live:ready', ready)
 }
+
+/** Live connections per person in this process (tabs, desks): capped by socketsPerUser. */
+const socketsOfUser = new Map<string, number>()
 
 /**
  * With NUXT_REDIS_URL set, rooms span every process of the app: an event emitted in one process
@@ -102,6 +124,8 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
       }
       const user = await userFromHandshake(socket.request)
       if (!user) return next(new Error('unauthorized'))
+      if ((socketsOfUser.get(user.id) ?? 0) >= serverConfig().socketsPerUser) return next(new Error('too-many-connections'))
+      socket.data.userId = user.id
       if (exerciseId) {
         // The same rule as the HTTP routes: the `live.follow` capability of the permission table.
         let access: ExerciseAccess
@@ -120,12 +144,20 @@ export default defineNitroPlugin((nitroApp: NitroApp) => {
   })
 
   io.on('connection', (socket) => {
+    const userId = socket.data.userId as string | undefined
+    if (userId) {
+      socketsOfUser.set(userId, (socketsOfUser.get(userId) ?? 0) + 1)
+      socket.on('disconnect', () => {
+        const n = (socketsOfUser.get(userId) ?? 1) - 1
+        if (n > 0) socketsOfUser.set(userId, n)
+        else socketsOfUser.delete(userId)
+      })
+    }
     if (socket.data.live) {
-      try { joinLive(socket, socket.data.live as LiveSocketData) }
-      catch (err) {
+      joinLive(socket, socket.data.live as LiveSocketData).catch((err) => {
         console.error('[socket.io] live join failed:', err)
         socket.disconnect(true)
-      }
+      })
     }
     socket.on('ping:clock', (ack: unknown) => {
       if (typeof ack === 'function') ack({ serverTime: Date.now() })

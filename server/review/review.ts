@@ -86,11 +86,14 @@ export function reviewScoring(exerciseId: string, view?: LiveView) {
 }
 
 /**
- * The record for the replay: every event with its audience (so the page can show each room its share),
- * with the assessments left out of solution publications (fetched one at a time, see `publishedSolution`).
+ * The record for the replay, a page at a time (the events after `after`, at most `limit`): every event with its
+ * audience (so the page can show each room its share), with the assessments left out of solution publications
+ * (fetched one at a time, see `publishedSolution`).
  */
-export function replayRecord(exerciseId: string, view?: LiveView) {
-  const { exercise, events } = reviewRecord(exerciseId, view)
+export function replayRecord(exerciseId: string, view: LiveView = { kind: 'control' }, page = { after: 0, limit: 1000 }) {
+  const exercise = liveExercise(useDB(), exerciseId)
+  const rows = storedEvents(exerciseId, view, page.after, page.limit + 1)
+  const events = rows.slice(0, page.limit)
   const slim = events.map((e) => {
     if (e.type !== 'solution.published') return e
     const { assessment: _a, ...data } = e.data
@@ -98,6 +101,8 @@ export function replayRecord(exerciseId: string, view?: LiveView) {
   })
   return {
     events: slim,
+    /** More events follow the last one here: ask again with `after` = its seq. */
+    more: rows.length > page.limit,
     sites: exercise.scenario.sites,
     teams: exercise.scenario.teams,
     phases: exercise.scenario.phases,

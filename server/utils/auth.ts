@@ -106,7 +106,10 @@ export async function requireExerciseAccess<S extends z.ZodType<{ id: string }> 
 ): Promise<ExerciseAccess & { params: z.output<S> }> {
   const user = await requireUser(event)
   const params = paramsValid(event, paramsSchema ?? idParamSchema) as z.output<S>
-  return { ...exerciseAccess(user, params.id, capability), params }
+  const access = exerciseAccess(user, params.id, capability)
+  // Every change to an exercise counts against its writer's limit (reads do not).
+  if (event.method !== 'GET' && event.method !== 'HEAD') await consumeDrillWrite(event, user.id, params.id)
+  return { ...access, params }
 }
 
 /** What the session keeps of a user (ids only; roles are always read from the database). */

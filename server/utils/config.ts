@@ -20,6 +20,12 @@ export interface ServerConfig {
   schedulerLeaseMs: number
   /** Worker threads for assessments and PDFs; 0: one fewer than the processors, 1 to 4. */
   workerThreads: number
+  /** Writes per person, exercise and minute. */
+  writeLimitPerMinute: number
+  /** Written text one exercise's record may hold, MB. */
+  recordLimitMb: number
+  /** Live connections per person and process. */
+  socketsPerUser: number
 }
 
 // NUXT_* values arrive parsed ("1" → 1, "true" → true).
@@ -48,6 +54,9 @@ export function serverConfig(): ServerConfig {
     schedulerIntervalMs: Number(c.schedulerIntervalMs) || 250,
     schedulerLeaseMs: Number(c.schedulerLeaseMs) || 3000,
     workerThreads: Math.max(0, Math.floor(Number(c.workerThreads) || 0)),
+    writeLimitPerMinute: Math.max(1, Math.floor(Number(c.writeLimitPerMinute) || 120)),
+    recordLimitMb: Math.max(0.01, Number(c.recordLimitMb) || 16),
+    socketsPerUser: Math.max(1, Math.floor(Number(c.socketsPerUser) || 12)),
   }
   return config
 }

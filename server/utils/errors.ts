@@ -2,7 +2,7 @@ import { H3Error } from 'h3'
 import type { FieldIssue } from '#shared/utils/issues'
 
 /** What went wrong in a service, independent of HTTP. */
-export type DomainErrorKind = 'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'ended'
+export type DomainErrorKind = 'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'ended' | 'too-large'
 
 /** The one place where domain errors become HTTP statuses (an ended drill refuses writes as a conflict). */
 export const HTTP_STATUS_OF: Record<DomainErrorKind, number> = {
@@ -11,6 +11,7 @@ export const HTTP_STATUS_OF: Record<DomainErrorKind, number> = {
   'not-found': 404,
   'conflict': 409,
   'ended': 409,
+  'too-large': 413,
 }
 
 /**
@@ -38,6 +39,13 @@ export const notFound = (message: string) => new DomainError('not-found', messag
 export const conflict = (message: string, data?: Record<string, unknown>) => new DomainError('conflict', message, data)
 /** The drill is over: nothing more is written to its record. */
 export const exerciseEnded = () => new DomainError('ended', 'The exercise has ended.')
+/** The exercise's record holds as much written text as it may (NUXT_RECORD_LIMIT_MB). */
+export const recordFull = (limitMb: number) => new DomainError(
+  'too-large',
+  `This exercise's record is full: it holds the ${limitMb} MB of written answers, messages and notes a drill may keep. `
+  + 'Nothing was saved. Ask the facilitator: the drill goes on, but new text cannot be stored.',
+  { code: 'record-full', limitMb },
+)
 /** A request that names something the service rejects, with a path per problem. */
 export const invalidFields = (issues: FieldIssue[], message = 'Invalid request body: check the listed fields.') =>
   new DomainError('invalid', message, { issues })

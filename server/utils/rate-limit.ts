@@ -60,3 +60,24 @@ export async function resetAllowed(event: H3Event, email: string): Promise<boole
   }
   return true
 }
+
+// Writes to a drill: a person may write writeLimitPerMinute times a minute to one exercise (NUXT_WRITE_LIMIT_PER_MINUTE,
+// 120: far above what a team, an evaluator or the facilitator does by hand; a script posting answers in a loop stops here).
+let drillWrites: RateLimiterMemory | undefined
+
+/** Takes one write for this person and exercise, or refuses with 429 and Retry-After. */
+export async function consumeDrillWrite(event: H3Event, userId: string, exerciseId: string): Promise<void> {
+  const points = serverConfig().writeLimitPerMinute
+  drillWrites ??= new RateLimiterMemory({ keyPrefix: 'drill-write', points, duration: 60 })
+  try { await drillWrites.consume(`${userId}|${exerciseId}`) }
+  catch (e) {
+    if (!(e instanceof RateLimiterRes)) throw e
+    const seconds = Math.max(1, Math.ceil(e.msBeforeNext / 1000))
+    setResponseHeader(event, 'Retry-After', seconds)
+    throw createError({
+      statusCode: 429,
+      message: `Too many changes in a minute (${points} per person). Nothing was saved; send it again in ${seconds} s.`,
+      data: { code: 'too-many-writes', retryAfterSeconds: seconds },
+    })
+  }
+}

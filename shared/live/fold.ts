@@ -19,6 +19,8 @@ export interface FeedInject extends InjectData {
   /** Every rendering, the release first; the last is `body`. */
   revisions: FeedRevision[]
   responses: FeedResponse[]
+  /** A snapshot's window left out this many earlier answers (the live socket brings them). */
+  earlierResponses?: number
 }
 
 export interface FeedSolution { key: string; label: string; seq: number; publishedAt: string; headline: Headline }

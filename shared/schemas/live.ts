@@ -69,6 +69,12 @@ export const eventsQuerySchema = z.object({
   limit: z.coerce.number().int().min(1).max(1000).default(500),
 })
 
+/** A page of the replay: the events after `after`, at most `limit`. */
+export const replayQuerySchema = z.object({
+  after: z.coerce.number().int().min(0).default(0),
+  limit: z.coerce.number().int().min(1).max(2000).default(1000),
+})
+
 export const wallTokenSchema = z.object({ label: z.string().trim().max(120).default('') })
 
 /** The Socket.IO handshake `auth` of a live client: a member's exercise, or a wall's share token. */
