@@ -52,7 +52,10 @@ export function submitFeedback(exerciseId: string, userId: string, input: Feedba
   return { ratings: row.ratings, wentWell: row.wentWell, toImprove: row.toImprove, updatedAt: row.updatedAt.toISOString() }
 }
 
-/** Feedback for the review: the summary by role and team (no names), and who was asked and who answered. */
+/**
+ * Feedback for the review: the summary (comments in groups of at least three, see groupComments), who was asked, and
+ * how many of them have not answered yet; never who answered (that, with a role and team, would name the writer).
+ */
 export function reviewFeedback(exerciseId: string) {
   const db = useDB()
   const rows = db.select({ r: schema.feedbackResponses, role: schema.memberships.role, teamKey: schema.memberships.teamKey })
@@ -73,27 +76,31 @@ export function reviewFeedback(exerciseId: string) {
   const answered = new Set(rows.map(x => x.r.userId))
   const lastAsked = new Map<string, string>()
   for (const a of asked) lastAsked.set(a.userId, a.at.toISOString())
+  const members = exerciseMembers(exerciseId)
   return {
     summary: feedbackSummary(entries, lastAsked.size),
-    members: exerciseMembers(exerciseId).map(m => ({
-      userId: m.userId,
-      name: m.name,
-      role: m.role,
-      teamKey: m.teamKey,
-      askedAt: lastAsked.get(m.userId) ?? null,
-      answered: answered.has(m.userId),
+    members: members.map(m => ({
+      userId: m.userId, name: m.name, role: m.role, teamKey: m.teamKey, askedAt: lastAsked.get(m.userId) ?? null,
     })),
+    /** Members who have not answered (the reader among them), for the reminder. */
+    waiting: members.filter(m => !answered.has(m.userId)).length,
   }
 }
 
 /**
  * E-mails the feedback form (a link to /exercises/:id/feedback) to the chosen members, or to every
- * member but the sender. Only once the drill has ended (409 before).
+ * member but the sender; with `waiting`, only to those of them who have not answered. Only once the drill has
+ * ended (409 before).
  */
-export async function requestFeedback(exerciseId: string, input: { userIds?: string[]; message: string }, sender: User) {
+export async function requestFeedback(exerciseId: string, input: { userIds?: string[]; waiting?: boolean; message: string }, sender: User) {
   const exercise = getExercise(exerciseId)
   if (exercise.status !== 'ended') throw conflict('Send the feedback form once the drill has ended.')
-  const to = input.userIds ? membersByIds(exerciseId, input.userIds) : exerciseMembers(exerciseId).filter(m => m.userId !== sender.id)
+  let to = input.userIds ? membersByIds(exerciseId, input.userIds) : exerciseMembers(exerciseId).filter(m => m.userId !== sender.id)
+  if (input.waiting) {
+    const answered = new Set(useDB().select({ userId: schema.feedbackResponses.userId }).from(schema.feedbackResponses)
+      .where(eq(schema.feedbackResponses.exerciseId, exerciseId)).all().map(r => r.userId))
+    to = to.filter(m => !answered.has(m.userId))
+  }
   const link = appLink(`/exercises/${exerciseId}/feedback`)
   for (const m of to) {
     await sendMail({

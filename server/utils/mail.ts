@@ -33,6 +33,17 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
   await transport().sendMail({ from: useRuntimeConfig().smtp.from, ...mail })
 }
 
+/**
+ * Sends a message after the response has gone (errors are logged, once a minute at most): for requests whose answer
+ * must not depend on whether a mail went out, such as a password-reset request (its timing would tell which
+ * addresses have accounts).
+ */
+export function queueMail(mail: OutgoingMail): void {
+  setImmediate(() => {
+    sendMail(mail).catch(err => logThrottled('mail:queued', '[mail] a queued message could not be sent (repeats are logged once a minute):', err))
+  })
+}
+
 /** Absolute link into the app for e-mails. */
 export function appLink(path: string): string {
   return new URL(path, serverConfig().appUrl).toString()

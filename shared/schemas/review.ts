@@ -71,5 +71,6 @@ export type FeedbackInput = z.infer<typeof feedbackSchema>
 const recipients = z.array(uuid).min(1, 'Choose at least one member.').max(200)
 const message = z.string().trim().max(2000, 'At most 2000 characters.').default('')
 
-export const feedbackRequestSchema = z.object({ userIds: recipients.optional(), message })
+// `waiting: true`: only the members who have not answered (the server picks them; who answered is never shown).
+export const feedbackRequestSchema = z.object({ userIds: recipients.optional(), waiting: z.boolean().default(false), message })
 export const reportSendSchema = z.object({ userIds: recipients, message })

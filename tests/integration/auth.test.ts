@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { as, Client, DEMO, DEMO_PASSWORD, mailTo, newMember } from '../support/client'
+import { until } from '../support/live'
 
 describe('sign-in', () => {
   it('signs in with e-mail and password, reports the user, and signs out', async () => {
@@ -93,7 +94,8 @@ describe('accounts by e-mail', () => {
     expect(known.status).toBe(202)
     expect(unknown.status).toBe(202)
     expect(known.json).toEqual(unknown.json)
-    const [mail] = (await mailTo(email)).filter(m => /reset/i.test(m.subject))
+    // The mail goes out after the answer.
+    const mail = await until(async () => (await mailTo(email)).find(m => /reset/i.test(m.subject)), 10_000, 'reset mail')
     const token = /\/password\/([\w-]+)/.exec(mail!.text)![1]!
     expect((await new Client().post('/api/auth/password', { token, password: 'my brand new password' })).status).toBe(200)
     expect((await new Client().post('/api/auth/login', { email, password: 'my brand new password' })).status).toBe(200)

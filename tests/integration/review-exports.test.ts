@@ -64,14 +64,17 @@ beforeAll(async () => {
     url('/hotwash/follow-up'),
     { body: 'The press office drafts the template by October.', revision: 0 },
   )).status).toBe(200)
-  expect((await d.civil.client.post(
-    url('/feedback'),
-    {
-      ratings: { objectives: 4, realism: 4, figures: 5, coordination: 3, pace: 2 },
-      wentWell: 'Clear odds.',
-      toImprove: 'More time per decision.',
-    },
-  )).status).toBe(200)
+  // Three players of three teams: their comments form one group of players (a team of one would name its writer).
+  for (const [player, wentWell] of [[d.civil, 'Clear odds.'], [d.science, 'Good maps.'], [d.comms, 'Fast releases.']] as const) {
+    expect((await player.client.post(
+      url('/feedback'),
+      {
+        ratings: { objectives: 4, realism: 4, figures: 5, coordination: 3, pace: 2 },
+        wentWell,
+        toImprove: player === d.civil ? 'More time per decision.' : '',
+      },
+    )).status).toBe(200)
+  }
 }, 180_000)
 afterAll(() => {
   closeSockets()
@@ -150,8 +153,10 @@ describe('the after-action report PDF', () => {
     expect(text).toContain('In progress')
     expect(text).toContain('The press office drafts the template by October.')
     expect(text).toContain('More time per decision.')
-    // Feedback comments go by role and team, not by name.
-    expect(text).toContain('Player, Coastal Protection Directorate Went well: Clear odds.')
+    // Feedback comments go in groups of at least three, sorted, without names, teams of one or times.
+    expect(text).toContain('Players, several teams (3) Went well')
+    expect(text).toMatch(/Clear odds\. .*Fast releases\. .*Good maps\./)
+    expect(text).not.toContain('Coastal Protection Directorate Went well')
   })
 })
 

@@ -1,6 +1,7 @@
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import type { ThreatSummary } from '#shared/geo/threat'
 import { durationText } from '#shared/review/decisions'
+import { FEEDBACK_MIN_GROUP } from '#shared/review/feedback'
 import { FINDING_KIND_LABELS, ITEM_STATUS_LABELS, POETE_LABELS, RATING_LABELS, RATINGS } from '#shared/review/plan'
 import { pdfSafe } from '#shared/review/pdftext'
 import { ROLE_LABELS, type ExerciseRole } from '#shared/utils/roles'
@@ -218,15 +219,17 @@ function hotwashAndFeedback(d: R): Content[] {
   for (const s of d.hotwash) {
     out.push({ text: s.title, style: 'h2' }, ...(s.body.trim() ? paragraphs(s.body) : [{ text: 'Nothing written.', style: 'muted' } as Content]))
   }
-  out.push({ text: 'Participant feedback', style: 'h2' }, { text: `${f.responses} ${f.responses === 1 ? 'response' : 'responses'}${f.invited ? ` from ${f.invited} members asked` : ''}. Ratings from 1 (strongly disagree) to 5 (strongly agree); comments by role and team, without names.`, style: 'muted', margin: [0, 0, 0, 4] })
+  out.push({ text: 'Participant feedback', style: 'h2' }, { text: `${f.responses} ${f.responses === 1 ? 'response' : 'responses'}${f.invited ? ` from ${f.invited} members asked` : ''}. Ratings from 1 (strongly disagree) to 5 (strongly agree); comments in groups of at least ${FEEDBACK_MIN_GROUP} people, without names or times${f.commentsWithheld ? ` (${f.commentsWithheld} held back until ${FEEDBACK_MIN_GROUP} people have written one)` : ''}.`, style: 'muted', margin: [0, 0, 0, 4] })
   out.push(pdfTable(['Statement', 'Answers', 'Mean', '1', '2', '3', '4', '5'], f.questions.map(q => [q.text, String(q.n), q.mean === null ? '—' : q.mean.toFixed(1), ...q.counts.map(String)]), ['*', 40, 30, 18, 18, 18, 18, 18]))
   const team = (k: string | null) => (k ? d.scenario.teams.find(t => t.key === k)?.name ?? k : null)
   for (const c of f.comments) {
-    const who = [c.role ? ROLE_LABELS[c.role as ExerciseRole] : 'Former member', team(c.teamKey)].filter(Boolean).join(', ')
+    const who = c.role
+      ? `${ROLE_LABELS[c.role as ExerciseRole]}s${team(c.teamKey) ? `, ${team(c.teamKey)}` : c.role === 'player' ? ', several teams' : ''}`
+      : 'All who wrote'
     out.push({ stack: [
-      { text: pt(who), bold: true, fontSize: 8.5 },
-      ...(c.wentWell ? [{ text: [{ text: 'Went well: ', bold: true }, pt(c.wentWell)], fontSize: 8.5 }] : []),
-      ...(c.toImprove ? [{ text: [{ text: 'To improve: ', bold: true }, pt(c.toImprove)], fontSize: 8.5 }] : []),
+      { text: pt(`${who} (${c.people})`), bold: true, fontSize: 8.5 },
+      ...(c.wentWell.length ? [{ text: 'Went well', bold: true, fontSize: 8.5 }, { ul: c.wentWell.map(pt), fontSize: 8.5 }] : []),
+      ...(c.toImprove.length ? [{ text: 'To improve', bold: true, fontSize: 8.5 }, { ul: c.toImprove.map(pt), fontSize: 8.5 }] : []),
     ], margin: [0, 2, 0, 6] } as Content)
   }
   return out

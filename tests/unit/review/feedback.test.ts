@@ -1,13 +1,17 @@
 import { describe, expect, it } from 'vitest'
-import { feedbackSummary } from '../../../shared/review/feedback'
+import fc from 'fast-check'
+import { FEEDBACK_MIN_GROUP, feedbackSummary, type FeedbackEntry } from '../../../shared/review/feedback'
 import { eventFacets } from '../../../shared/review/facets'
 import { pdfSafe } from '../../../shared/review/pdftext'
 import { feedbackSchema, improvementPatchSchema, improvementSchema } from '../../../shared/schemas/review'
 import { ev, inject, resetSeq, response, scenario } from './fixtures'
 
 describe('the feedback summary', () => {
-  it('counts answers per statement and keeps comments by role and team', () => {
-    const at = '2031-10-01T00:00:00Z'
+  const at = '2031-10-01T00:00:00Z'
+  const entry = (role: FeedbackEntry['role'], teamKey: string | null, wentWell: string, submittedAt = at): FeedbackEntry =>
+    ({ role, teamKey, wentWell, toImprove: '', ratings: {}, submittedAt })
+
+  it('counts answers per statement, and holds back comments while fewer than three people wrote any', () => {
     const s = feedbackSummary([
       { role: 'player', teamKey: 'science', wentWell: 'Odds', toImprove: '', ratings: { objectives: 5, pace: 2 }, submittedAt: at },
       { role: 'evaluator', teamKey: null, wentWell: '', toImprove: '', ratings: { objectives: 4 }, submittedAt: at },
@@ -15,7 +19,40 @@ describe('the feedback summary', () => {
     expect(s).toMatchObject({ responses: 2, invited: 6 })
     expect(s.questions.find(q => q.key === 'objectives')).toMatchObject({ n: 2, mean: 4.5, counts: [0, 0, 0, 1, 1] })
     expect(s.questions.find(q => q.key === 'realism')).toMatchObject({ n: 0, mean: null })
-    expect(s.comments).toEqual([{ role: 'player', teamKey: 'science', wentWell: 'Odds', toImprove: '', submittedAt: at }])
+    expect(s.comments).toEqual([])
+    expect(s.commentsWithheld).toBe(1)
+  })
+
+  it('groups by team where three of a team wrote, else by role, else all together; texts sorted, no times', () => {
+    const s = feedbackSummary([
+      entry('player', 'science', 'c', '2031-10-01T03:00:00Z'), entry('player', 'science', 'a'), entry('player', 'science', 'b'),
+      entry('player', 'civil', 'd'), entry('player', 'comms', 'e'), entry('player', 'comms', 'f'),
+    ], 6)
+    expect(s.comments).toEqual([
+      { role: 'player', teamKey: 'science', people: 3, wentWell: ['a', 'b', 'c'], toImprove: [] },
+      { role: 'player', teamKey: null, people: 3, wentWell: ['d', 'e', 'f'], toImprove: [] },
+    ])
+    expect(JSON.stringify(s)).not.toContain('2031')
+    // One evaluator among them cannot be told apart: everything goes into one group.
+    const mixed = feedbackSummary([entry('player', 'science', 'a'), entry('player', 'science', 'b'), entry('player', 'science', 'c'),
+      entry('evaluator', null, 'z')], 4)
+    expect(mixed.comments).toEqual([{ role: null, teamKey: null, people: 4, wentWell: ['a', 'b', 'c', 'z'], toImprove: [] }])
+  })
+
+  it('never shows a group of fewer than three, and loses no comment once three people wrote', () => {
+    const roles = ['player', 'evaluator', 'analyst', 'facilitator', null] as const
+    const arb = fc.array(fc.record({
+      role: fc.constantFrom(...roles), teamKey: fc.constantFrom('science', 'civil', 'comms', null), wentWell: fc.string({ minLength: 1, maxLength: 5 }),
+    }), { maxLength: 20 })
+    fc.assert(fc.property(arb, (xs) => {
+      const entries = xs.map(x => entry(x.role, x.role === 'player' ? x.teamKey : null, x.wentWell))
+      const writers = entries.filter(e => e.wentWell.trim()).length
+      const s = feedbackSummary(entries, 0)
+      for (const g of s.comments) expect(g.people).toBeGreaterThanOrEqual(FEEDBACK_MIN_GROUP)
+      const shown = s.comments.reduce((n, g) => n + g.people, 0)
+      expect(shown + s.commentsWithheld).toBe(writers)
+      if (writers >= FEEDBACK_MIN_GROUP) expect(shown).toBe(writers)
+    }), { numRuns: 500 })
   })
 })
 
