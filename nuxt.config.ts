@@ -44,6 +44,9 @@ export default defineNuxtConfig({
       // The local catcher runs whenever no real SMTP host is configured.
       port: 2525,
     },
+    // The local catcher keeps account links whole (NUXT_MAILBOX_LINKS=1): for the demo and tests only, where its
+    // mailbox stands in for everyone's inbox. Off: stored mails show that a link was sent, not the link.
+    mailboxLinks: false,
     session: {
       name: 'brinkwater-session',
       maxAge: 60 * 60 * 12,

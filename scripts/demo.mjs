@@ -28,6 +28,8 @@ const env = {
   PORT: port,
   NUXT_SESSION_PASSWORD: sessionPassword,
   NUXT_SEED_DEMO: '1',
+  // No mail server in the demo: the local mailbox (/dev/mailbox) stands in for everyone's inbox, links included.
+  NUXT_MAILBOX_LINKS: process.env.NUXT_MAILBOX_LINKS ?? '1',
   NUXT_DB_PATH: process.env.NUXT_DB_PATH || resolve(dataDir, 'brinkwater.sqlite'),
   NUXT_APP_URL: process.env.NUXT_APP_URL || `http://localhost:${port}`,
 }

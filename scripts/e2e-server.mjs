@@ -26,6 +26,8 @@ const server = spawn(process.execPath, [entry], {
     NUXT_SESSION_PASSWORD: 'browser-tests-session-password-0123456789abcdef',
     NUXT_FAKE_SMTP_PORT: process.env.E2E_SMTP_PORT || '3738',
     NUXT_SMTP_HOST: '',
+    // The browser tests follow invitation links from the local mailbox.
+    NUXT_MAILBOX_LINKS: '1',
     NUXT_APP_URL: `http://127.0.0.1:${port}`,
     DEMO_PASSWORD: '',
   },

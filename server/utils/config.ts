@@ -26,6 +26,8 @@ export interface ServerConfig {
   recordLimitMb: number
   /** Live connections per person and process. */
   socketsPerUser: number
+  /** The local mail catcher stores account links whole (demo and tests). */
+  mailboxLinks: boolean
 }
 
 // NUXT_* values arrive parsed ("1" → 1, "true" → true).
@@ -57,6 +59,7 @@ export function serverConfig(): ServerConfig {
     writeLimitPerMinute: Math.max(1, Math.floor(Number(c.writeLimitPerMinute) || 120)),
     recordLimitMb: Math.max(0.01, Number(c.recordLimitMb) || 16),
     socketsPerUser: Math.max(1, Math.floor(Number(c.socketsPerUser) || 12)),
+    mailboxLinks: flag(c.mailboxLinks),
   }
   return config
 }

@@ -35,3 +35,14 @@ export function consumeAccountToken(token: string, now = Date.now()): { userId: 
     return { userId: row.userId, kind: row.kind }
   }, { behavior: 'immediate' }) // read then write: take the write lock first (several processes may share the file)
 }
+
+/** What stands where an account link's token was, in a stored copy of a mail. */
+export const WITHHELD_LINK = '[link withheld: it went to the recipient only]'
+
+/**
+ * A mail's text with the tokens of account links (invitation, password reset) taken out: a stored copy (the local
+ * mailbox, a backup) must not let whoever reads it set the password of someone else's account.
+ */
+export function withoutAccountTokens(text: string): string {
+  return text.replace(/\/password\/[A-Za-z0-9_-]{16,}(\?[^\s"'<>]*)?/g, `/password/${WITHHELD_LINK}`)
+}

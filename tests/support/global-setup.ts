@@ -35,6 +35,8 @@ export async function setup(project: TestProject) {
       // The shared server takes thousands of writes a minute from one test account (bad-input sweeps, the
       // authorisation matrix); the per-person limit itself is tested on its own server (write-limits.test.ts).
       NUXT_WRITE_LIMIT_PER_MINUTE: '100000',
+      // The tests follow invitation and reset links from the local mailbox (mail-links.test.ts checks the default).
+      NUXT_MAILBOX_LINKS: '1',
     },
     stdio: ['ignore', 'inherit', 'inherit'],
   })

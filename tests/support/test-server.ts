@@ -47,6 +47,8 @@ export class TestServer {
       ...process.env, PORT: String(port), HOST: '127.0.0.1', NUXT_DB_PATH: this.dbPath,
       NUXT_SEED_DEMO: this.opts.seed === false ? '' : '1', NUXT_SESSION_PASSWORD: 'own-server-tests-session-password-0123456789ab',
       NUXT_FAKE_SMTP_PORT: String(smtp), NUXT_SMTP_HOST: '', NUXT_APP_URL: this.base, DEMO_PASSWORD: '',
+      // Tests follow links from the local mailbox; mail-links.test.ts turns this off to check the default.
+      NUXT_MAILBOX_LINKS: '1',
       ...this.opts.env,
     }
     return this

@@ -15,9 +15,22 @@ export default defineEventHandler(async (event) => {
     await rm(dir, { recursive: true, force: true })
     throw e
   }
-  // The copy names a new epoch of the record: restored, it tells open pages to replay from scratch.
+  // The copy names a new epoch of the record: restored, it tells open pages to replay from scratch. It holds no working
+  // account link: pending invitations and resets are left out (a restored copy sends new ones), and stored mails lose
+  // their links' tokens.
   const copy = new Database(file)
-  try { copy.prepare(`INSERT OR REPLACE INTO app_meta (key, value) VALUES ('epoch', ?)`).run(randomUUID()) }
+  try {
+    // Overwrite what is deleted or replaced, so that no old page of the file still holds a link.
+    copy.pragma('secure_delete = ON')
+    copy.transaction(() => {
+      copy.prepare(`INSERT OR REPLACE INTO app_meta (key, value) VALUES ('epoch', ?)`).run(randomUUID())
+      copy.prepare('DELETE FROM account_tokens').run()
+      const update = copy.prepare('UPDATE caught_mail SET text = ?, html = ? WHERE id = ?')
+      const mails = copy.prepare(`SELECT id, text, html FROM caught_mail WHERE text LIKE '%/password/%' OR html LIKE '%/password/%'`)
+        .all() as Array<{ id: string; text: string; html: string | null }>
+      for (const m of mails) update.run(withoutAccountTokens(m.text), m.html === null ? null : withoutAccountTokens(m.html), m.id)
+    })()
+  }
   finally { copy.close() }
   // The client left while the copy was being taken.
   if (event.node.res.destroyed || event.node.req.destroyed) {
