@@ -60,10 +60,28 @@ function injectData(w: LiveWriter, def: InjectDef, opts: { manual: boolean; wasH
 }
 
 /**
+ * Why an inject's figures cannot be filled in now: it quotes hazard fields, and the solution it presents is not
+ * published (or, presenting none, no solution is); null when they can. Names the solution to publish first.
+ */
+export function missingSolution(exercise: LiveExercise, def: InjectDef, published: readonly Published[]) {
+  if (!hasHazardFields(def.body)) return null
+  if (def.solution) {
+    if (published.some(p => p.key === def.solution)) return null
+    const entry = exercise.scenario.solutions.find(s => s.key === def.solution)
+    return { solutionKey: def.solution, label: entry?.label ?? def.solution }
+  }
+  if (published.length) return null
+  const first = exercise.scenario.solutions[0]
+  return first ? { solutionKey: first.key, label: first.label } : { solutionKey: null, label: null }
+}
+
+/**
  * Releases a scenario inject to its teams, exactly once: by the scheduler when it falls due, or by
  * hand at any time (the only way for contingency and held injects). Already released → 409 with its seq.
+ * By hand, an inject whose figures have no published solution yet is refused (409 `no-solution`, naming
+ * the solution to publish) unless `force`: its teams then read "figures not yet available".
  */
-export function releaseInject(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
+export function releaseInject(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean; force?: boolean }) {
   return liveWrite(exerciseId, (w) => {
     if (w.exercise.status === 'ended') throw exerciseEnded()
     const def = injectDef(w.exercise, key)
@@ -71,6 +89,16 @@ export function releaseInject(exerciseId: string, key: string, opts: { actorId?:
     const row = w.tx.select().from(schema.exerciseInjects)
       .where(and(eq(schema.exerciseInjects.exerciseId, exerciseId), eq(schema.exerciseInjects.injectKey, key))).get()
     if (row?.status === 'released') throw conflict('This inject was already released.', { seq: row.releasedSeq })
+    const missing = opts.manual && !opts.force ? missingSolution(w.exercise, def, publishedSolutions(w.tx, exerciseId)) : null
+    if (missing) {
+      throw conflict(
+        missing.label
+          ? `This inject quotes hazard figures of “${missing.label}”, which is not published yet: publish it first, or release anyway `
+          + 'and its teams read “figures not yet available”.'
+          : 'This inject quotes hazard figures, but the scenario has no orbit solution: release anyway and its teams read “figures not yet available”.',
+        { code: 'no-solution', solutionKey: missing.solutionKey, label: missing.label },
+      )
+    }
     const data = injectData(w, def, { manual: opts.manual, wasHeld: row?.status === 'held' })
     const event = w.append({
       type: 'inject.released',

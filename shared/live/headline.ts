@@ -2,6 +2,7 @@ import type { Assessment, SiteAssessment } from '../hazard/types'
 import { heatRows, heatSourceText } from '../geo/threat'
 import { findHazardFields, renderHazardFields } from '../scenario/fields'
 import type { Headline } from './types'
+import { NO_SOLUTION_YET } from './pending'
 import { DRILL } from './visibility'
 
 const fill = (a: Assessment, field: string) => renderHazardFields(`{{ ${field} }}`, a)
@@ -40,7 +41,7 @@ function worstHeat(a: Assessment): Headline['heat'] {
 }
 
 /** What a hazard field shows while no orbit solution has been published. */
-export const NO_SOLUTION_YET = 'n/a (no orbit solution published yet)'
+export { NO_SOLUTION_YET } from './pending'
 
 /** True when a text quotes hazard fields. */
 export function hasHazardFields(text: string): boolean {

@@ -17,14 +17,14 @@ const SUPERSCRIPTS: Record<string, string> = {
 }
 const REPLACE: Record<string, string> = {
   'κ': 'kappa', 'σ': 'sigma', 'μ': 'micro', 'Δ': 'delta', '→': '->', '←': '<-', '≥': '>=', '≤': '<=', '≈': '~', '≠': '!=',
-  '∞': 'infinity', '✓': 'yes', '✗': 'no', '☐': '[ ]', '\u00a0': ' ',
+  '∞': 'infinity', '✓': 'yes', '✗': 'no', '☐': '[ ]', '\u00a0': ' ', '⟨': '[', '⟩': ']',
 }
 
 /** Superscript runs become `^n` ("8.2 × 10⁹" → "8.2 × 10^9"); other characters outside the subset are replaced. */
 export function pdfSafe(text: string): string {
   return text
     .replace(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻]+/g, run => `^${[...run].map(c => SUPERSCRIPTS[c]).join('')}`)
-    .replace(/[κσμΔ→←≥≤≈≠∞✓✗☐\u00a0]/g, c => REPLACE[c] ?? c)
+    .replace(/[κσμΔ→←≥≤≈≠∞✓✗☐\u00a0⟨⟩]/g, c => REPLACE[c] ?? c)
 }
 
 /** Longest run of characters without a break opportunity that the PDFs lay out as it is. */

@@ -69,6 +69,9 @@ export const eventsQuerySchema = z.object({
   limit: z.coerce.number().int().min(1).max(1000).default(500),
 })
 
+/** Releasing an inject: `force` confirms a release whose figures have no published solution yet. */
+export const releaseSchema = z.object({ force: z.boolean().default(false) })
+
 /** A page of the replay: the events after `after`, at most `limit`. */
 export const replayQuerySchema = z.object({
   after: z.coerce.number().int().min(0).default(0),

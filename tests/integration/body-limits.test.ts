@@ -36,7 +36,9 @@ function postChunked(path: string, totalMiB: number, headers: Record<string, str
       res.resume()
       res.on('end', () => resolve({ status: res.statusCode ?? 0, sentMiB: sent }))
     })
-    req.on('error', (e) => { if (!answered) reject(e) })
+    // The server may close the connection right after its answer, while chunks are still being written: the write then
+    // fails (EPIPE, ECONNRESET) just before the answer is read. Give the answer a moment before calling it a failure.
+    req.on('error', (e) => { setTimeout(() => { if (!answered) reject(e) }, 1000) })
     const pump = () => {
       while (!answered && sent < totalMiB) {
         sent++

@@ -17,7 +17,7 @@ let scenario: Scenario
 let injectKey: string
 
 beforeAll(async () => {
-  server = await new TestServer({ stderr: 'ignore', env: { NUXT_RECORD_LIMIT_MB: String(RECORD_LIMIT_MB) } }).init()
+  server = await new TestServer({ stderr: 'ignore', env: { NUXT_RECORD_LIMIT_MB: String(RECORD_LIMIT_MB), NUXT_WRITE_LIMIT_PER_MINUTE: '' } }).init()
   await server.start()
   facilitator = await Http.signIn(server.base, 'facilitator@brinkwater.test')
   science = await Http.signIn(server.base, 'science@brinkwater.test')

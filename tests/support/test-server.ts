@@ -49,6 +49,8 @@ export class TestServer {
       NUXT_FAKE_SMTP_PORT: String(smtp), NUXT_SMTP_HOST: '', NUXT_APP_URL: this.base, DEMO_PASSWORD: '',
       // Tests follow links from the local mailbox; mail-links.test.ts turns this off to check the default.
       NUXT_MAILBOX_LINKS: '1',
+      // Tests send thousands of writes a minute as one person; write-limits.test.ts restores the default (120).
+      NUXT_WRITE_LIMIT_PER_MINUTE: '100000',
       ...this.opts.env,
     }
     return this
