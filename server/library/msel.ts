@@ -82,7 +82,8 @@ function cellText(value: ExcelJS.CellValue): string | { problem: string } {
 async function xlsxTable(data: Uint8Array): Promise<string[][]> {
   const buffer = Buffer.from(data)
   const unpacked = unpackedSize(buffer)
-  if (unpacked === null || unpacked > MAX_XLSX_UNPACKED) fileProblem('The file is not an XLSX workbook this server can read.')
+  if (unpacked === null) fileProblem('The file is not an XLSX workbook this server can read.')
+  if (unpacked! > MAX_XLSX_UNPACKED) fileProblem(`The workbook unpacks to more than ${MAX_XLSX_UNPACKED / 1024 / 1024} MiB.`)
   const wb = new ExcelJS.Workbook()
   try { await wb.xlsx.load(buffer as unknown as ExcelJS.Buffer) }
   catch { fileProblem('The file is not an XLSX workbook this server can read.') }

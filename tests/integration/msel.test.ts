@@ -127,6 +127,13 @@ describe('a broken file', () => {
     const noHeader = await upload(fac, 'just,some\ntext,here\n', 'x.csv')
     expect(noHeader.status).toBe(400)
     expect(noHeader.json.data.errors[0].message).toMatch(/header/)
+    // A workbook whose parts claim to unpack to gigabytes is refused before it is opened.
+    const xlsx = Buffer.from((await download(fac, `/api/scenarios/${id}/msel.xlsx`)).bytes)
+    const central = xlsx.indexOf(Buffer.from([0x50, 0x4b, 0x01, 0x02]))
+    xlsx.writeUInt32LE(0x7fff_0000, central + 24)
+    const bomb = await upload(fac, new Uint8Array(xlsx), 'bomb.xlsx')
+    expect(bomb.status).toBe(400)
+    expect(bomb.json.message).toMatch(/unpacks/)
     const empty = await fac.request('POST', `/api/scenarios/${id}/msel`, new FormData())
     expect(empty.status).toBe(400)
   })
