@@ -7,8 +7,8 @@ import type { MselError } from '#shared/scenario/msel'
 import type { ScenarioRow, User } from '#shared/types/db'
 import { saveScenario } from './scenarios'
 
-/** Largest inject list file accepted, bytes. */
-export const MAX_MSEL_BYTES = 4 * 1024 * 1024
+/** Largest inject list file accepted, bytes (a full scenario's list is larger than its 1 MiB YAML; the body limit is 6 MiB). */
+export const MAX_MSEL_BYTES = 5 * 1024 * 1024
 /** Largest sum of the unpacked parts of an XLSX file, bytes (a small zip can unpack to gigabytes). */
 const MAX_XLSX_UNPACKED = 64 * 1024 * 1024
 /** Rows read from a file at most (a scenario holds at most 500 injects). */
