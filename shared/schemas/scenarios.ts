@@ -47,3 +47,8 @@ export const memberPatchSchema = z.object({
 
 export const exerciseMemberParams = z.object({ id: z.string().uuid('Not a valid id.'), userId: z.string().uuid('Not a valid id.') })
 export const attachmentParams = z.object({ id: z.string().uuid('Not a valid id.'), attachmentId: z.string().uuid('Not a valid id.') })
+
+/** Import of an inject list: the revision the editor holds (409 when the scenario moved on); without it, the current one. */
+export const mselImportQuerySchema = z.object({
+  revision: z.coerce.number().int().min(1).optional(),
+})

@@ -292,6 +292,9 @@ const MATRIX: { routes: RouteRow[]; rooms: RoomRow[] } = {
     { route: 'PUT scenarios/[id].put.ts', call: c => ({ path: S(c), body: INVALID }), expect: authors(400) },
     { route: 'DELETE scenarios/[id].delete.ts', call: c => ({ path: `/api/scenarios/${c.missing}` }), expect: authors({ status: 404, message: /No such scenario/ }) },
     { route: 'GET scenarios/[id]/export.get.ts', call: c => ({ path: `${S(c)}/export` }), expect: authors(200) },
+    { route: 'GET scenarios/[id]/msel.xlsx.get.ts', call: c => ({ path: `${S(c)}/msel.xlsx` }), expect: authors(200) },
+    { route: 'GET scenarios/[id]/msel.csv.get.ts', call: c => ({ path: `${S(c)}/msel.csv` }), expect: authors(200) },
+    { route: 'POST scenarios/[id]/msel.post.ts', call: c => ({ path: `${S(c)}/msel`, body: INVALID }), expect: authors(400) },
     { route: 'POST scenarios/[id]/duplicate.post.ts', call: c => ({ path: `/api/scenarios/${c.missing}/duplicate` }), expect: authors({ status: 404, message: /No such scenario/ }) },
     { route: 'POST scenarios/[id]/exercises.post.ts', call: c => ({ path: `${S(c)}/exercises`, body: INVALID }), expect: authors(400) },
     {

@@ -1,0 +1,15 @@
+import { idParamSchema } from '#shared/schemas/auth'
+import { getScenarioRow, mselCsv } from '~~/server/library'
+
+// The scenario's injects as CSV (UTF-8 with a byte order mark), one row per inject (the import reads it back).
+export default defineEventHandler(async (event) => {
+  await requireAuthor(event)
+  const { id } = paramsValid(event, idParamSchema)
+  const row = getScenarioRow(id)
+  setResponseHeaders(event, {
+    'Content-Type': 'text/csv; charset=utf-8',
+    'Content-Disposition': `attachment; filename="${row.key}-injects.csv"`,
+    'Cache-Control': 'no-store',
+  })
+  return mselCsv(row)
+})

@@ -1,0 +1,15 @@
+import { idParamSchema } from '#shared/schemas/auth'
+import { getScenarioRow, mselXlsx } from '~~/server/library'
+
+// The scenario's injects as an XLSX workbook, one row per inject (the import reads it back).
+export default defineEventHandler(async (event) => {
+  await requireAuthor(event)
+  const { id } = paramsValid(event, idParamSchema)
+  const row = getScenarioRow(id)
+  setResponseHeaders(event, {
+    'Content-Type': 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+    'Content-Disposition': `attachment; filename="${row.key}-injects.xlsx"`,
+    'Cache-Control': 'no-store',
+  })
+  return await mselXlsx(row)
+})
