@@ -1,6 +1,14 @@
 import type { LiveEvent, ResponseData } from '~~/shared/live/types'
 
-export interface OutgoingResponse { injectKey: string; choice: string | null; text: string; idempotencyKey: string; queuedAt: number }
+export interface OutgoingResponse {
+  injectKey: string
+  choice: string | null
+  text: string
+  /** The inject's revision on screen when the team answered. */
+  injectRevision?: number
+  idempotencyKey: string
+  queuedAt: number
+}
 export type SubmitResult = { state: 'sent'; response: ResponseData } | { state: 'queued' }
 
 const flushing = new Set<string>()
@@ -41,6 +49,7 @@ export function useResponseOutbox(exerciseId: string) {
       injectKey: r.injectKey,
       choice: r.choice || null,
       text: r.text,
+      injectRevision: r.injectRevision,
       idempotencyKey: r.idempotencyKey,
     }, timeout: 15_000,
   })

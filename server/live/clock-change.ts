@@ -3,7 +3,21 @@ import { nextInjectAt } from '#shared/live/schedule'
 import type { ClockActionInput } from '#shared/schemas/live'
 import { writeClock } from './clock'
 import { injectRows } from './injects'
-import { liveWrite } from './record'
+import { liveWrite, type LiveWriter } from './record'
+
+/** Holds the scheduled injects between two scenario times (a jump with `due: skip`), each with an `inject.held` event. */
+function skipPassed(w: LiveWriter, from: number, to: number, actorId: string) {
+  const rows = injectRows(w.tx, w.exercise.id)
+  for (const i of w.exercise.scenario.injects) {
+    const at = Date.parse(i.at)
+    if (i.contingency || rows.has(i.key) || at <= from || at > to) continue
+    w.tx.insert(schema.exerciseInjects).values({ exerciseId: w.exercise.id, injectKey: i.key, status: 'held' }).run()
+    w.append({
+      type: 'inject.held', audience: 'control', actorId,
+      data: { key: i.key, title: i.title, at: i.at, teams: i.teams, skippedByJump: true },
+    })
+  }
+}
 
 /**
  * Applies a facilitator's clock action (start, pause, resume, speed, jump, end) and records it as a
@@ -26,6 +40,8 @@ export function changeClock(exerciseId: string, input: ClockActionInput, actorId
       throw new DomainError(r.code === 400 ? 'invalid' : 'conflict', r.message, data)
     }
     writeClock(w.tx, exerciseId, r.state, r.status)
+    // A forward jump that skips what falls due on the way holds it now, before any scheduler pass can release it.
+    if (input.action === 'jump' && input.due === 'skip') skipPassed(w, r.from, scenarioTimeAt(r.state, w.now), actorId)
     const clock = clockDto(r.state, r.status, w.bounds)
     const event = w.append({
       type: 'clock.changed', audience: 'all', actorId, scenarioTime: scenarioTimeAt(r.state, w.now),

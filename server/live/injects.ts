@@ -60,6 +60,10 @@ function injectData(w: LiveWriter, def: InjectDef, opts: { manual: boolean; wasH
 }
 
 /**
+/** Lateness (scenario ms) past which an automatic release moves the decision's deadline: above the scheduler's own lag. */
+export const LATE_RELEASE_MS = 60_000
+
+/**
  * Why an inject's figures cannot be filled in now: it quotes hazard fields, and the solution it presents is not
  * published (or, presenting none, no solution is); null when they can. Names the solution to publish first.
  */
@@ -84,11 +88,17 @@ export function missingSolution(exercise: LiveExercise, def: InjectDef, publishe
 export function releaseInject(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean; force?: boolean }) {
   return liveWrite(exerciseId, (w) => {
     if (w.exercise.status === 'ended') throw exerciseEnded()
-    const def = injectDef(w.exercise, key)
-    if (!def) throw notFound('No such inject in this exercise.')
+    const scripted = injectDef(w.exercise, key)
+    if (!scripted) throw notFound('No such inject in this exercise.')
     const row = w.tx.select().from(schema.exerciseInjects)
       .where(and(eq(schema.exerciseInjects.exerciseId, exerciseId), eq(schema.exerciseInjects.injectKey, key))).get()
     if (row?.status === 'released') throw conflict('This inject was already released.', { seq: row.releasedSeq })
+    // Released by the scheduler later than scripted (a jump of the clock, a time with no process running): the decision
+    // keeps the time the script allowed, its deadline moving by as much as the release came late.
+    const late = opts.manual ? 0 : w.scenarioNow - Date.parse(scripted.at)
+    const shift = late > LATE_RELEASE_MS ? late : 0
+    const moved = (d: NonNullable<InjectDef['decision']>) => ({ ...d, deadline: new Date(Date.parse(d.deadline) + shift).toISOString() })
+    const def: InjectDef = shift > 0 && scripted.decision ? { ...scripted, decision: moved(scripted.decision) } : scripted
     const missing = opts.manual && !opts.force ? missingSolution(w.exercise, def, publishedSolutions(w.tx, exerciseId)) : null
     if (missing) {
       throw conflict(
@@ -106,7 +116,11 @@ export function releaseInject(exerciseId: string, key: string, opts: { actorId?:
       actorId: opts.actorId,
       data,
     })
-    const values = { status: 'released' as const, releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey, revision: 0 }
+    const values = {
+      status: 'released' as const, releasedSeq: event.seq, body: data.body, solutionKey: data.solutionKey, revision: 0,
+      // The moved deadline is the inject's from now on (answers, revisions and desks read it from the row).
+      ...(def !== scripted ? { definition: def } : {}),
+    }
     if (row) w.tx.update(schema.exerciseInjects).set(values).where(and(
       eq(schema.exerciseInjects.id, row.id),
       eq(schema.exerciseInjects.status, 'held'),
@@ -127,7 +141,10 @@ export function holdInject(exerciseId: string, key: string, actorId: string) {
     if (row?.status === 'released') throw conflict('This inject was already released.', { seq: row.releasedSeq })
     if (row) return { created: false }
     w.tx.insert(schema.exerciseInjects).values({ exerciseId, injectKey: key, status: 'held' }).run()
-    w.append({ type: 'inject.held', audience: 'control', actorId, data: { key, title: def.title, at: def.at, teams: def.teams } })
+    w.append({
+      type: 'inject.held', audience: 'control', actorId,
+      data: { key, title: def.title, at: def.at, teams: def.teams },
+    })
     return { created: true }
   })
 }

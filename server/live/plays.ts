@@ -14,7 +14,7 @@ export function submitResponse(
   exerciseId: string,
   user: User,
   membership: Membership,
-  input: { injectKey: string; choice?: string | null; text: string; idempotencyKey: string },
+  input: { injectKey: string; choice?: string | null; text: string; injectRevision?: number; idempotencyKey: string },
 ) {
   return liveWrite(exerciseId, (w) => {
     const again = findIdempotent(w.tx, exerciseId, user.id, input.idempotencyKey, 'response.submitted')
@@ -30,9 +30,15 @@ export function submitResponse(
       def.decision?.choices ? 'not one of the choices' : 'this inject offers no choices',
     )
     const late = def.decision ? w.scenarioNow > Date.parse(def.decision.deadline) : false
+    // The revision the team had on screen: a later one may have arrived while they wrote.
+    const injectRevision = input.injectRevision ?? row!.revision
+    if (injectRevision > row!.revision) throw badField('injectRevision', `this inject has no revision ${injectRevision} yet`)
     const event = w.append({
       type: 'response.submitted', audience: `teams:${teamKey}`, actorId: user.id, idempotencyKey: input.idempotencyKey,
-      data: { id: randomUUID(), injectKey: input.injectKey, teamKey, choice: input.choice ?? null, text: input.text, late, by: by(user) },
+      data: {
+        id: randomUUID(), injectKey: input.injectKey, teamKey, choice: input.choice ?? null, text: input.text, late, by: by(user),
+        injectRevision,
+      },
     })
     return { event, created: true }
   })

@@ -41,8 +41,8 @@ function dueNow(exerciseId: string, now: number) {
 async function runItem(exerciseId: string, item: DueItem): Promise<boolean> {
   try {
     if (item.kind === 'solution') await publishSolution(exerciseId, item.key, { manual: false })
-    else if (!injectRows(useDB(), exerciseId).has(item.key)) releaseInject(exerciseId, item.key, { manual: false })
-    else return false
+    else if (injectRows(useDB(), exerciseId).has(item.key)) return false
+    else releaseInject(exerciseId, item.key, { manual: false })
     return true
   }
   catch (err) {

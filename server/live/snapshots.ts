@@ -13,8 +13,10 @@ function schedule(exercise: LiveExercise, feed: Feed, t: number) {
   const answered = new Map<string, Set<string>>()
   for (const r of feed.responses) answered.set(r.injectKey, (answered.get(r.injectKey) ?? new Set()).add(r.teamKey))
   const defs: InjectDef[] = [
-    ...exercise.scenario.injects,
-    ...[...rows.values()].filter(r => r.definition).map(r => r.definition!),
+    // A scenario inject as released (a jump may have moved its deadline), else as scripted.
+    ...exercise.scenario.injects.map(i => rows.get(i.key)?.definition ?? i),
+    // Ad-hoc messages (a scenario inject's row may carry its own definition too: a deadline moved by a jump).
+    ...[...rows.values()].filter(r => r.definition?.adhoc).map(r => r.definition!),
   ]
   return defs.map((def) => {
     const row = rows.get(def.key)

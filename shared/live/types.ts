@@ -127,7 +127,14 @@ export interface InjectRevisedData {
   drill: DrillFlag
 }
 
-export interface InjectHeldData { key: string; title: string; at: string; teams: string[] }
+export interface InjectHeldData {
+  key: string
+  title: string
+  at: string
+  teams: string[]
+  /** Held because a jump of the clock passed it with `due: skip` (absent: held by hand). */
+  skippedByJump?: boolean
+}
 
 export interface PersonRef { id: string; name: string }
 
@@ -140,6 +147,8 @@ export interface ResponseData {
   /** Submitted after the decision deadline (scenario time). */
   late: boolean
   by: PersonRef
+  /** The inject's revision the team answered (its text and figures then); absent in records before it was kept: 0. */
+  injectRevision?: number
 }
 
 export type Rating = 'P' | 'S' | 'M' | 'U'

@@ -1,7 +1,8 @@
 /**
  * Decisions and response times from the event record: for every released inject that asks for a
- * decision, and every team it went to, the time from release to the team's first response, set
- * against the decision deadline (scenario time) — then summarised per team and per phase.
+ * decision, and every team it went to, the time from release to the team's first response (scenario
+ * time, less any jump of the clock in between), set against the decision deadline (scenario time, as
+ * released: a late release moves it) — then summarised per team and per phase.
  */
 import type { ResponseData, StoredEvent } from '../live/types'
 import { phaseAt } from '../live/schedule'
@@ -21,7 +22,19 @@ export interface DecisionRow {
   deadline: string
   /** Scenario minutes from release to deadline (negative when released after it). */
   allowedMin: number
-  first: { seq: number; scenarioTime: string; wallTime: string; choice: string | null; text: string; by: string; late: boolean } | null
+  first: {
+    seq: number
+    scenarioTime: string
+    wallTime: string
+    choice: string | null
+    text: string
+    by: string
+    late: boolean
+    /** The inject's revision the team answered (0: as released). */
+    injectRevision: number
+  } | null
+  /** The inject's latest revision in the record: above first.injectRevision, its figures changed after the answer. */
+  revision: number
   /** Scenario minutes from release to the first response. */
   responseMin: number | null
   /** Wall-clock minutes from release to the first response. */
@@ -88,6 +101,14 @@ export function decisionSummary(
     const k = `${d.injectKey}\u0000${d.teamKey}`
     responses.set(k, [...(responses.get(k) ?? []), { e, d }])
   }
+  const revisions = new Map<string, number>()
+  for (const e of sorted) if (e.type === 'inject.revised') revisions.set(e.data.key, e.data.revision)
+  // Scenario time skipped by jumps of the clock (seq, distance): a team does not spend it.
+  const jumps = sorted.flatMap(e => (e.type === 'clock.changed' && e.data.action === 'jump' && e.data.from
+    ? [{ seq: e.seq, ms: e.scenarioTime - Date.parse(e.data.from) }]
+    : []))
+  const jumpedBetween = (fromSeq: number, toSeq: number) =>
+    jumps.reduce((sum, j) => sum + (j.seq > fromSeq && j.seq < toSeq ? j.ms : 0), 0)
   const rows: DecisionRow[] = []
   for (const e of sorted) {
     if (e.type !== 'inject.released' && e.type !== 'message.sent') continue
@@ -97,7 +118,7 @@ export function decisionSummary(
     for (const teamKey of d.teams) {
       const all = responses.get(`${d.key}\u0000${teamKey}`) ?? []
       const f = all[0]
-      const responseMin = f ? (f.e.scenarioTime - e.scenarioTime) / MIN : null
+      const responseMin = f ? (f.e.scenarioTime - e.scenarioTime - jumpedBetween(e.seq, f.e.seq)) / MIN : null
       const allowedMin = (deadline - e.scenarioTime) / MIN
       const status: DecisionStatus = f ? (f.d.late ? 'late' : 'on-time') : scenarioNow > deadline ? 'missed' : 'pending'
       rows.push({
@@ -113,8 +134,10 @@ export function decisionSummary(
               text: f.d.text,
               by: f.d.by.name,
               late: f.d.late,
+              injectRevision: f.d.injectRevision ?? 0,
             }
           : null,
+        revision: revisions.get(d.key) ?? 0,
         responseMin, responseWallMin: f ? (f.e.wallTime - e.wallTime) / MIN : null,
         shareOfAllowed: f && allowedMin > 0 ? responseMin! / allowedMin : null,
         responses: all.length, status,

@@ -24,6 +24,11 @@ export const clockActionSchema = z.object({
   to: scenarioTimeSchema.optional(),
   /** Jump to the next scheduled inject instead. */
   toNextInject: z.boolean().optional(),
+  /**
+   * A jump's injects that fall due on the way: `release` them now, each decision deadline moved by as much as the
+   * release came late (the time the script allowed is kept); or `skip` them (held: control may release them by hand).
+   */
+  due: z.enum(['release', 'skip']).default('release'),
 }).superRefine((v, ctx) => {
   if (v.action === 'speed' && v.factor === undefined) ctx.addIssue({ code: 'custom', path: ['factor'], message: 'Give the new speed.' })
   if (v.action === 'jump' && !v.to === !v.toNextInject) ctx.addIssue({
@@ -33,6 +38,8 @@ export const clockActionSchema = z.object({
   })
 })
 export type ClockActionInput = z.infer<typeof clockActionSchema>
+/** A clock action as a page sends it (defaults filled in by the server). */
+export type ClockActionBody = z.input<typeof clockActionSchema>
 
 export const messageSchema = z.object({
   teams: z.array(keySchema).min(1, 'Choose at least one team.').max(20),
@@ -46,6 +53,8 @@ export const responseSchema = z.object({
   injectKey: keySchema,
   choice: z.string().trim().min(1).max(300).nullish(),
   text: z.string().trim().max(10_000).default(''),
+  /** The revision of the inject on the answering team's screen (absent: the current one). */
+  injectRevision: z.number().int().min(0).max(10_000).optional(),
   idempotencyKey: idempotencyKeySchema,
 }).refine(r => !!r.choice || r.text.length > 0, { path: ['text'], message: 'Choose an option or write a response.' })
 

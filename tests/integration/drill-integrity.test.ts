@@ -2,7 +2,7 @@
 // without the facilitator's say-so (before, its teams read "n/a (no orbit solution published yet)" and control was
 // not told), and when it is, they read "figures not yet available" in the project's own marking.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { closeSockets, newLiveExercise, type LiveCast } from '../support/live'
+import { closeSockets, ikey, newLiveExercise, type LiveCast } from '../support/live'
 import { findHazardFields } from '../../shared/scenario/fields'
 import { NO_SOLUTION_YET } from '../../shared/live/pending'
 import type { Scenario } from '../../shared/scenario/schema'
@@ -54,5 +54,75 @@ describe('figures before their solution', () => {
     expect(released.status).toBe(201)
     expect(released.json.event.data.body).not.toContain(NO_SOLUTION_YET)
     expect(released.json.event.data.solutionKey).toBe(pinned.solution)
+  })
+})
+
+describe('answers keep their context', () => {
+  it('records the revision a team answered; a later solution revises the inject, the answer still names the old one', async () => {
+    const c = await newLiveExercise('Revision drill')
+    const u = (p = '') => `/api/exercises/${c.id}${p}`
+    const [s1, s2] = scenario.solutions
+    const inject = scenario.injects.find(i => i.decision && !i.solution && !i.contingency && findHazardFields(i.body).length > 0
+      && i.teams.some(t => ['science', 'civil', 'comms'].includes(t)))!
+    const team = inject.teams.find(t => ['science', 'civil', 'comms'].includes(t)) as 'science' | 'civil' | 'comms'
+    expect((await c.facilitator.client.post(u(`/solutions/${s1!.key}/publish`), {})).status).toBe(201)
+    expect((await c.facilitator.client.post(u(`/injects/${inject.key}/release`), {})).status).toBe(201)
+    const tooNew = await c[team].client.post(u('/responses'), { injectKey: inject.key, text: 'Evacuate.', injectRevision: 3, idempotencyKey: ikey() })
+    expect(tooNew.status).toBe(400)
+    const answer = await c[team].client.post(u('/responses'), { injectKey: inject.key, text: 'Evacuate.', injectRevision: 0, idempotencyKey: ikey() })
+    expect(answer.status).toBe(201)
+    expect(answer.json.event.data.injectRevision).toBe(0)
+    expect((await c.facilitator.client.post(u(`/solutions/${s2!.key}/publish`), {})).status).toBe(201)
+    const room = (await c[team].client.get(u('/live'))).json
+    const card = room.injects.find((i: { key: string }) => i.key === inject.key)
+    expect(card.revision).toBe(1)
+    expect(card.revisions.map((r: { revision: number }) => r.revision)).toEqual([0, 1])
+    expect(card.responses[0].injectRevision).toBe(0)
+    const review = (await c.facilitator.client.get(u('/review/decisions'))).json
+    const row = review.rows.find((r: { injectKey: string; teamKey: string }) => r.injectKey === inject.key && r.teamKey === team)
+    expect(row.first.injectRevision).toBe(0)
+    expect(row.revision).toBe(1)
+  })
+})
+
+describe('jumps keep the script', () => {
+  const decisionInject = () => scenario.injects
+    .filter(i => i.decision && !i.contingency)
+    .sort((a, b) => Date.parse(a.at) - Date.parse(b.at))[0]!
+
+  it('releases what fell due with its deadline moved by as much as it came late', async () => {
+    const c = await newLiveExercise('Jump release drill')
+    const u = (p = '') => `/api/exercises/${c.id}${p}`
+    const inject = decisionInject()
+    expect((await c.facilitator.client.post(u('/clock'), { action: 'start', factor: 1 })).status).toBe(200)
+    const to = new Date(Date.parse(inject.at) + 6 * 3_600_000).toISOString()
+    expect((await c.facilitator.client.post(u('/clock'), { action: 'jump', to })).status).toBe(200)
+    const events = (await c.facilitator.client.get(u('/events'))).json.events as Array<{ type: string; scenarioTime: string; data: any }> // eslint-disable-line @typescript-eslint/no-explicit-any
+    const released = events.find(e => e.type === 'inject.released' && e.data.key === inject.key)!
+    const lateMs = Date.parse(released.scenarioTime) - Date.parse(inject.at)
+    expect(lateMs).toBeGreaterThanOrEqual(6 * 3_600_000 - 1000)
+    // The time the script allowed is kept: before, the team saw "Deadline passed".
+    expect(Date.parse(released.data.decision.deadline) - Date.parse(released.scenarioTime))
+      .toBeCloseTo(Date.parse(inject.decision!.deadline) - Date.parse(inject.at), -4)
+    const review = (await c.facilitator.client.get(u('/review/decisions'))).json
+    const row = review.rows.find((r: { injectKey: string }) => r.injectKey === inject.key)
+    expect(row.allowedMin).toBeGreaterThan(0)
+    expect(row.status).toBe('pending')
+  })
+
+  it('skips what fell due when asked: held, not released, and control may release it later', async () => {
+    const c = await newLiveExercise('Jump skip drill')
+    const u = (p = '') => `/api/exercises/${c.id}${p}`
+    const inject = decisionInject()
+    expect((await c.facilitator.client.post(u('/clock'), { action: 'start', factor: 1 })).status).toBe(200)
+    const to = new Date(Date.parse(inject.at) + 3_600_000).toISOString()
+    expect((await c.facilitator.client.post(u('/clock'), { action: 'jump', to, due: 'skip' })).status).toBe(200)
+    await new Promise(r => setTimeout(r, 600))
+    const events = (await c.facilitator.client.get(u('/events'))).json.events as Array<{ type: string; data: { key?: string; skippedByJump?: boolean } }>
+    expect(events.some(e => e.type === 'inject.released' && e.data.key === inject.key)).toBe(false)
+    expect(events.find(e => e.type === 'inject.held' && e.data.key === inject.key)?.data.skippedByJump).toBe(true)
+    // Solutions that fell due are still published.
+    expect(events.some(e => e.type === 'solution.published')).toBe(true)
+    expect((await c.facilitator.client.post(u(`/injects/${inject.key}/release`), { force: true })).status).toBe(201)
   })
 })

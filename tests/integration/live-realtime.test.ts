@@ -54,7 +54,7 @@ describe('rooms', () => {
       .map(who => [who, liveSocket(cast[who].client.cookieHeader, { exerciseId: cast.id })])) as Record<string, LiveSocket>
     await Promise.all(Object.values(socks).map(ready))
     for (const key of ['survey-candidate', 'duty-officer-heads-up', 'blogger-risk-table']) {
-      expect((await facilitator().post(url(`/injects/${key}/release`))).status).toBe(201)
+      expect((await facilitator().post(url(`/injects/${key}/release`), { force: true })).status).toBe(201)
     }
     for (const who of ['evaluator', 'analyst', 'facilitator']) {
       await until(() => keys(socks[who]!).length >= 3, 5000, `${who} to hear three injects`)
@@ -87,8 +87,8 @@ describe('replay', () => {
     const seen = first.events.map(e => e.seq)
     const lastSeq = Math.max(...seen)
     first.socket.close()
-    await facilitator().post(url('/injects/neighbour-region-coordination/release'))
-    await facilitator().post(url('/injects/survey-candidate/release'))
+    await facilitator().post(url('/injects/neighbour-region-coordination/release'), { force: true })
+    await facilitator().post(url('/injects/survey-candidate/release'), { force: true })
     await facilitator().post(url('/clock'), { action: 'pause' })
     const again = liveSocket(cast.civil.client.cookieHeader, { exerciseId: cast.id, lastSeq })
     await ready(again)
@@ -135,8 +135,8 @@ describe('the wall', () => {
     expect(wall.events.some(e => e.type === 'clock.changed')).toBe(true)
     expect(wall.events.filter(e => e.type === 'inject.released')).toEqual([])
 
-    await facilitator().post(url('/injects/precovery-release/release'))
-    await facilitator().post(url('/injects/observing-time-request/release'))
+    await facilitator().post(url('/injects/precovery-release/release'), { force: true })
+    await facilitator().post(url('/injects/observing-time-request/release'), { force: true })
     await facilitator().post(url('/solutions/s1-discovery/publish'))
     const sol = await until(() => wall.events.find(e => e.type === 'solution.published'), 10_000, 'solution at the wall')
     expect(sol.data.assessment).toBeUndefined()

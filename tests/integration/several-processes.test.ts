@@ -122,7 +122,7 @@ describe('two processes behind one address', () => {
     // A release by hand through B reaches the science player connected to A.
     const manual = scenario.injects.find(i => i.contingency && i.teams.includes('science'))!
     const sent = Date.now()
-    const res = await facilitatorB.post(`/api/exercises/${exerciseId}/injects/${manual.key}/release`)
+    const res = await facilitatorB.post(`/api/exercises/${exerciseId}/injects/${manual.key}/release`, { force: true })
     expect(res.status).toBe(201)
     const got = await until(
       () => onA.seen.find(e => e.type === 'inject.released' && e.data.key === manual.key),

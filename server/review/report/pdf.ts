@@ -167,6 +167,9 @@ function decisions(d: R): Content[] {
       [team(r.teamKey), pdfTime(r.releasedAt), pdfTime(r.deadline), r.first ? `${pdfTime(r.first.scenarioTime)} by ${r.first.by}` : '—', durationText(r.responseMin), fmtPct(r.shareOfAllowed),
         { text: STATUS_TEXT[r.status], bold: true, fontSize: 7.5, color: r.status === 'on-time' ? PDF_INK.P : r.status === 'pending' ? PDF_INK.muted : PDF_INK.U }],
       ...(r.first && (r.first.choice || r.first.text) ? [[{ text: pt(`${r.first.choice ?? ''}${r.first.choice && r.first.text ? ' — ' : ''}${r.first.text}`.slice(0, 600)), fontSize: 7.5, color: PDF_INK.muted, colSpan: 7 }, '', '', '', '', '', ''] as TableCell[]] : []),
+      ...(r.first && r.first.injectRevision < r.revision
+        ? [[{ text: `Answered ${r.first.injectRevision === 0 ? 'the message as released' : `revision ${r.first.injectRevision}`}; its figures were revised after (now revision ${r.revision}).`, fontSize: 7.5, color: PDF_INK.U, colSpan: 7 }, '', '', '', '', '', ''] as TableCell[]]
+        : []),
     ]), [110, 72, 72, '*', 44, 40, 44], { fontSize: 7.5, groupRows: true }),
   ]
 }

@@ -31,6 +31,21 @@ describe('decision response times', () => {
     })])
   })
 
+  it('leaves a jump of the clock out of a response time, and says when the answer was to an earlier revision', () => {
+    const events = [
+      ev('inject.released', 0, inject('ask', ['science'], 'detection', 600), 'all', 0),
+      // A jump of 4 scenario hours an hour after the release.
+      ev('clock.changed', 300, { action: 'jump', clock: {}, from: new Date(T0 + 60 * MIN).toISOString() }, 'all', 1),
+      ev('inject.revised', 310, { key: 'ask', teams: ['science'], revision: 1, body: 'New', solutionKey: 's2', previousSolutionKey: 's1' }),
+      ev('response.submitted', 330, { ...response('ask', 'science'), injectRevision: 0 }, 'teams:science', 3),
+    ]
+    const [row] = decisionSummary(events, scenario, T0 + 400 * MIN).rows
+    // 330 scenario minutes after the release, of which the jump took 240: the team took 90.
+    expect(row!.responseMin).toBe(90)
+    expect(row!.first!.injectRevision).toBe(0)
+    expect(row!.revision).toBe(1)
+  })
+
   it.each([
     ['pending before the deadline', 500, 'pending'],
     ['missed once the deadline has passed', 700, 'missed'],
