@@ -1,16 +1,18 @@
 import { z } from 'zod'
 import { orbitSolutionSchema, siteSchema } from '~~/shared/hazard/schema'
 import type { Assessment } from '~~/shared/hazard/types'
+import { PUBLISH_SAMPLES } from '~~/shared/live/seed'
 
-interface PreviewSource { solution: unknown; sites: unknown }
+/** What to assess; `seed` is the solution's (solutionSeed), so that the preview shows the drill's own figures. */
+interface PreviewSource { solution: unknown; sites: unknown; seed?: number }
 
 const sitesSchema = z.array(siteSchema)
 
 /**
  * The live hazard assessment of an (unsaved) orbit solution, from the preview API: debounced,
- * checked locally first, and the latest answer wins. Browser only.
+ * checked locally first, and the latest answer wins. Browser only. By default with a drill's samples.
  */
-export function useHazardPreview(source: () => PreviewSource | null, samples = 5000) {
+export function useHazardPreview(source: () => PreviewSource | null, samples = PUBLISH_SAMPLES) {
   const store = useScenarioEditor()
   const assessment = shallowRef<Assessment | null>(null)
   const pending = ref(false)
@@ -32,7 +34,7 @@ export function useHazardPreview(source: () => PreviewSource | null, samples = 5
     }
     pending.value = true
     try {
-      const a = await store.assess(solution.data, sites.data, samples)
+      const a = await store.assess(solution.data, sites.data, samples, src.seed)
       if (mine === ticket) { assessment.value = a; problem.value = '' }
     }
     catch (e) {

@@ -137,8 +137,8 @@ export const useScenarioEditor = defineStore('scenarioEditor', () => {
   }
 
   /** The hazard assessment of one solution against sites, from the server (cached per request). */
-  function assess(solution: OrbitSolution, sites: Site[], samples: number): Promise<Assessment> {
-    const body = { solution, sites, samples, seed: 1 }
+  function assess(solution: OrbitSolution, sites: Site[], samples: number, seed = 1): Promise<Assessment> {
+    const body = { solution, sites, samples, seed }
     const key = JSON.stringify(body)
     let p = previews.get(key)
     if (!p) {

@@ -1,19 +1,13 @@
-import { createHash } from 'node:crypto'
 import { and, asc, eq } from 'drizzle-orm'
 import { assessmentHeadline, hasHazardFields } from '#shared/live/headline'
+import { PUBLISH_SAMPLES, solutionSeed } from '#shared/live/seed'
 import { DRILL, teamsAudience } from '#shared/live/visibility'
 import { type Published, publishedSolutions, rememberAssessment } from './assessments'
 import { injectDef, renderInject } from './injects'
 import { runTask } from '../workers/pool'
 import { liveExercise, liveWrite, type LiveWriter } from './record'
 
-/** Samples of every published assessment (20 000 keeps the 5/50/95 percentiles steady from run to run). */
-export const PUBLISH_SAMPLES = 20_000
-
-/** The deterministic Monte Carlo seed of a solution in an exercise (31 bits of SHA-256 of "<exercise id>:<solution key>"). */
-export function solutionSeed(exerciseId: string, solutionKey: string): number {
-  return createHash('sha256').update(`${exerciseId}:${solutionKey}`).digest().readUInt32BE(0) >>> 1
-}
+export { PUBLISH_SAMPLES, solutionSeed } from '#shared/live/seed'
 
 /** Re-renders released injects against the published solutions; appends `inject.revised` where the text changed. */
 function reviseReleased(w: LiveWriter, published: readonly Published[]) {
@@ -50,8 +44,8 @@ function reviseReleased(w: LiveWriter, published: readonly Published[]) {
 }
 
 /**
- * Publishes an orbit solution: runs the hazard model (PUBLISH_SAMPLES samples, seed from the
- * exercise and solution), stores the assessment on the `solution.published` event, and revises the
+ * Publishes an orbit solution: runs the hazard model (PUBLISH_SAMPLES samples, the seed of the
+ * scenario's solution), stores the assessment on the `solution.published` event, and revises the
  * released injects whose figures change. Exactly once per solution; again → 409. The model runs on a worker thread.
  */
 export async function publishSolution(exerciseId: string, key: string, opts: { actorId?: string | null; manual: boolean }) {
@@ -60,7 +54,8 @@ export async function publishSolution(exerciseId: string, key: string, opts: { a
   if (!entry) throw notFound('No such solution in this exercise.')
   const isPublished = (db: DB | Tx) => publishedSolutions(db, exerciseId).some(p => p.key === key)
   if (isPublished(useDB())) throw conflict('This solution was already published.')
-  const seed = solutionSeed(exerciseId, key)
+  // The seed of the solution in its scenario: the library's brief shows the same figures.
+  const seed = solutionSeed(exercise.scenario.key, key)
   // The model runs on a worker thread; the write below checks again that no one published meanwhile.
   const assessment = await runTask('assess', { solution: entry.solution, sites: exercise.scenario.sites, samples: PUBLISH_SAMPLES, seed })
   return liveWrite(exerciseId, (w) => {

@@ -17,7 +17,7 @@ export const VIEW_LABELS: Record<MapView, string> = { ocean: 'Ocean', regional: 
 export function ringBasisText(b: MedianBlastCase | null): string {
   if (!b) return 'Blast rings unavailable for this solution; see the per-site exceedance table.'
   const how = b.regime === 'airburst' ? `an airburst at ${sig(b.burstAltitudeM / 1000)} km` : 'a surface burst'
-  return `Blast rings: median case, ${sig(b.energyMt)} Mt TNT as ${how} (engine overpressure law, Collins et al. 2005). Actual damage varies with the spread of energy and impact point.`
+  return `Blast rings: median case, the median entry energy ${sig(b.energyMt)} Mt TNT released as ${how} (engine overpressure law, Collins et al. 2005). Actual damage varies with the spread of energy and impact point.`
 }
 
 export function toneLabel(t: RunUpClass): string {

@@ -56,18 +56,20 @@ export function blastRings(
 }
 
 /** How a site is marked for the tsunami: by its 95th-percentile run-up (thresholds of the model: 1 m, 3 m). */
-export type RunUpClass = 'inland' | 'none' | 'low' | 'moderate' | 'high'
+export type RunUpClass = 'inland' | 'offshore' | 'none' | 'low' | 'moderate' | 'high'
 
 export const RUN_UP_CLASSES: ReadonlyArray<{ key: RunUpClass; label: string }> = [
   { key: 'high', label: 'Run-up 3 m or more (95th percentile)' },
   { key: 'moderate', label: 'Run-up 1–3 m (95th percentile)' },
   { key: 'low', label: 'Run-up under 1 m (95th percentile)' },
   { key: 'none', label: 'Coastal, no tsunami in these figures' },
+  { key: 'offshore', label: 'Offshore site, no shore (wave height only)' },
   { key: 'inland', label: 'Inland site (no tsunami figures)' },
 ]
 
-export function runUpClass(s: Pick<SiteAssessment, 'coastal' | 'runUpM'>): RunUpClass {
+export function runUpClass(s: Pick<SiteAssessment, 'coastal' | 'runUpM' | 'shore'>): RunUpClass {
   if (s.coastal === false) return 'inland'
+  if (s.shore === false) return 'offshore'
   const p95 = s.runUpM.p95
   if (!(p95 > 0)) return 'none'
   return p95 >= 3 ? 'high' : p95 >= 1 ? 'moderate' : 'low'

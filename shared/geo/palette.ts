@@ -31,7 +31,7 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     corridor: '#f07b10', corridorEdge: '#ab420b', earlier: '#526c84', text: '#17202c', halo: '#ffffff',
     points: { sea: '#0d5c81', land: '#c22f45', air: '#17202c' },
     ring: '#9f2339',
-    site: { high: '#c22f45', moderate: '#fd9a2e', low: '#74cdee', none: '#ffffff', inland: '#7189a0' },
+    site: { high: '#c22f45', moderate: '#fd9a2e', low: '#74cdee', none: '#ffffff', inland: '#7189a0', offshore: '#b7c6d3' },
     siteEdge: '#0d131b',
     marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#ffffff',
   },
@@ -40,7 +40,7 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     corridor: '#fd9a2e', corridorEdge: '#ffbd5e', earlier: '#9fb1c1', text: '#f3f6f8', halo: '#0d131b',
     points: { sea: '#74cdee', land: '#f2707a', air: '#f3f6f8' },
     ring: '#f2707a',
-    site: { high: '#e0475a', moderate: '#fd9a2e', low: '#74cdee', none: '#0d131b', inland: '#9fb1c1' },
+    site: { high: '#e0475a', moderate: '#fd9a2e', low: '#74cdee', none: '#0d131b', inland: '#9fb1c1', offshore: '#526c84' },
     siteEdge: '#f3f6f8',
     marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#17202c',
   },
@@ -59,13 +59,17 @@ export const RING_DASH: Record<string, string> = {
 
 /**
  * The marker of a site: triangle for run-up of 3 m or more, diamond for 1–3 m, circle below 1 m,
- * hollow circle for none, square inland. `r` is the half-size in pixels.
+ * hollow circle for none, square inland, a cross for an offshore installation. `r` is the half-size in pixels.
  */
 export function siteGlyph(tone: RunUpClass, x: number, y: number, r: number): string {
   const f = (v: number) => Math.round(v * 10) / 10
   switch (tone) {
     case 'high': return `M${f(x)} ${f(y - r * 1.25)}L${f(x + r * 1.15)} ${f(y + r * 0.85)}L${f(x - r * 1.15)} ${f(y + r * 0.85)}Z`
     case 'moderate': return `M${f(x)} ${f(y - r * 1.2)}L${f(x + r * 1.2)} ${f(y)}L${f(x)} ${f(y + r * 1.2)}L${f(x - r * 1.2)} ${f(y)}Z`
+    case 'offshore': {
+      const a = r * 1.1, b = r * 0.35
+      return `M${f(x - b)} ${f(y - a)}h${f(2 * b)}v${f(a - b)}h${f(a - b)}v${f(2 * b)}h${f(b - a)}v${f(a - b)}h${f(-2 * b)}v${f(b - a)}h${f(b - a)}v${f(-2 * b)}h${f(a - b)}Z`
+    }
     case 'inland': return `M${f(x - r * 0.85)} ${f(y - r * 0.85)}h${f(r * 1.7)}v${f(r * 1.7)}h${f(-r * 1.7)}Z`
     default: return `M${f(x - r)} ${f(y)}a${r} ${r} 0 1 0 ${f(2 * r)} 0a${r} ${r} 0 1 0 ${f(-2 * r)} 0Z`
   }

@@ -8,7 +8,7 @@ import { BLAST } from './blast'
 import { OCEAN, TSUNAMI_SOURCE_LAWS } from './ocean'
 
 /** Engine version, stored with every assessment. */
-export const MODEL_VERSION = 'brinkwater-hazard/2.0.0'
+export const MODEL_VERSION = 'brinkwater-hazard/2.1.0'
 /** Default number of realisations, default seed, and the largest sample count accepted. */
 export const DEFAULT_SAMPLES = 20_000
 export const DEFAULT_SEED = 1

@@ -73,5 +73,10 @@ export const siteSchema = z.object({
    * from `offshoreDepthM` to the toe of the beach. Absent: 10 km (see shared/hazard/README.md).
    */
   shelfWidthKm: z.number().gt(0).max(500).optional(),
+  /**
+   * False for an offshore installation (a platform, a wind array): the wave counts at its depth, but it has no beach
+   * to run up. Absent: a coastal site has a shore.
+   */
+  shore: z.boolean().optional(),
 })
 export type Site = z.infer<typeof siteSchema>

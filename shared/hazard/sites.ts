@@ -103,12 +103,14 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   const d2 = site.offshoreDepthM ?? 1
   // Per-site constants of the shore profile: shoaling tables against wavelength, run-up against toe height.
   const coast = coastal ? coastOf(S.seaDepthM, site) : undefined
+  // An offshore installation: the wave at its depth counts, nothing runs up (no beach, no breaking on one).
+  const hasShore = coastal && site.shore !== false
   const shore = coast?.shore
   const KS = shore?.toOffshore ?? new Float64Array(2), KT = shore?.toToe ?? new Float64Array(2)
   const cap = OCEAN.breakingIndex * d2
   // A wave breaks before the shore once its toe height passes Synolakis's non-breaking limit (below 0.78 d_t).
-  const breakToeM = shore ? breakingLimit(shore.cotBeach) * shore.toeDepthM : Infinity
-  const runUpOf = (h: number) => shore ? runUpOnProfileM(shore, h) : 0
+  const breakToeM = shore && hasShore ? breakingLimit(shore.cotBeach) * shore.toeDepthM : Infinity
+  const runUpOf = (h: number) => shore && hasShore ? runUpOnProfileM(shore, h) : 0
   const cLong = longWaveSpeedMS(S.seaDepthM)
   // Thresholds by kind, ascending, so each realisation counts the levels it passes with an early exit.
   // Wind thresholds become overpressures (the wind law is monotone).
@@ -118,7 +120,7 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
   const P = levels('p'), TH = levels('th'), RU = levels('run')
   const pv = Float64Array.from(P, t => t.v), tv = Float64Array.from(TH, t => t.v)
   // Run-up thresholds as toe heights (run-up is non-decreasing in the toe height), so the loop needs no run-up.
-  const rv = Float64Array.from(RU, t => coast ? coast.toeFor(t.v) : Infinity)
+  const rv = Float64Array.from(RU, t => coast && hasShore ? coast.toeFor(t.v) : Infinity)
   const pHits = new Float64Array(P.length + 1), tHits = new Float64Array(TH.length + 1), rHits = new Float64Array(RU.length + 1)
   const nP = pv.length, nTv = tv.length, nR = rv.length
   const { dist, op, th, mag, amp, toe, ampLo, toeLo, ampHi, toeHi, t1, t2 } = w
@@ -264,6 +266,7 @@ export function evaluateSite(site: Site, S: SampleSet, w: SiteScratch): SiteResu
     name: site.name,
     population: site.population,
     coastal,
+    ...(coastal && !hasShore ? { shore: false } : {}),
     distanceKm,
     overpressureKPa,
     windMS,

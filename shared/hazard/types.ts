@@ -42,6 +42,8 @@ export interface SiteAssessment {
    * Always set by the engine; optional so that hand-made fixtures need not carry it.
    */
   coastal?: boolean
+  /** False for a coastal site with no shore (offshore installation): wave height only, run-up 0. Absent: true. */
+  shore?: boolean
   distanceKm: Percentiles
   overpressureKPa: Percentiles
   windMS: Percentiles

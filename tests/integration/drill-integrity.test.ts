@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { closeSockets, ikey, newLiveExercise, type LiveCast } from '../support/live'
 import { findHazardFields } from '../../shared/scenario/fields'
 import { NO_SOLUTION_YET } from '../../shared/live/pending'
+import { PUBLISH_SAMPLES, solutionSeed } from '../../shared/live/seed'
 import type { Scenario } from '../../shared/scenario/schema'
 
 let cast: LiveCast
@@ -124,5 +125,20 @@ describe('jumps keep the script', () => {
     // Solutions that fell due are still published.
     expect(events.some(e => e.type === 'solution.published')).toBe(true)
     expect((await c.facilitator.client.post(u(`/injects/${inject.key}/release`), { force: true })).status).toBe(201)
+  })
+})
+
+describe('one set of numbers', () => {
+  it('gives the library brief (a preview with the solution\'s seed) the figures a drill publishes', async () => {
+    const c = await newLiveExercise('Same numbers drill')
+    const s = scenario.solutions[1]!
+    expect((await c.facilitator.client.post(`/api/exercises/${c.id}/solutions/${s.key}/publish`, {})).status).toBe(201)
+    const drill = (await c.facilitator.client.get(`/api/exercises/${c.id}/review/solutions/${s.key}`)).json.assessment
+    const brief = (await c.facilitator.client.post('/api/scenarios/preview', {
+      solution: s.solution, sites: scenario.sites, samples: PUBLISH_SAMPLES, seed: solutionSeed(scenario.key, s.key),
+    })).json
+    expect(brief.energyMt).toEqual(drill.energyMt)
+    expect(brief.impactProbability).toBe(drill.impactProbability)
+    expect(brief.sites).toEqual(drill.sites)
   })
 })

@@ -26,6 +26,21 @@ const siteNorth = (km: number, extra: Partial<Site> = {}): Site => siteSchema.pa
   offshoreDepthM: 50, shelfWidthKm: 10, beachSlopeDeg: 2, ...extra,
 })
 
+describe('a site with no shore (an offshore installation)', () => {
+  it('keeps the wave at its depth, and has no run-up and no run-up exceedance', () => {
+    const s = fixedSolution()
+    const [beach, platform] = assessSolution(s, [siteNorth(300), siteNorth(300, { id: 'platform', shore: false })], { samples: 4000, seed: 7 }).sites
+    expect(beach!.runUpM.p50).toBeGreaterThan(0)
+    expect(platform!.shore).toBe(false)
+    // The same wave at the same depth (common practice, no source: a platform feels the passing wave, not a run-up).
+    expect(platform!.tsunamiAmplitudeM).toEqual(beach!.tsunamiAmplitudeM)
+    expect(platform!.runUpM).toEqual({ p5: 0, p50: 0, p95: 0 })
+    expect(platform!.exceedance.runUp1m).toBe(0)
+    expect(beach!.exceedance.runUp1m).toBeGreaterThan(0)
+    expect(beach!.shore).toBeUndefined()
+  })
+})
+
 describe('the tsunami in the assessment', () => {
   it('runs the same chain as tsunamiAtSite, reports each source law as a band, and mixes them log-uniformly', () => {
     const s = fixedSolution()

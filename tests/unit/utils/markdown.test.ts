@@ -86,7 +86,9 @@ function expectInert(html: string) {
 describe('the inject body renderer', () => {
   it('keeps raw HTML off and sanitises the result with DOMPurify', () => {
     expect(options).toMatch(/html:\s*false/)
-    expect(source).toMatch(/DOMPurify\.sanitize\(md\.render\(/)
+    // The rendered text (with the pending-figure marker styled) goes through DOMPurify before it is returned.
+    expect(source).toMatch(/const html = md\.render\(text\)/)
+    expect(source).toMatch(/return DOMPurify\.sanitize\(html,/)
   })
 
   it('renders script and event-handler HTML as text, and drops script links', () => {
