@@ -1,4 +1,4 @@
-import { emptyFeed, type Feed } from '~~/shared/live/fold'
+import { emptyFeed, latestImpactTime, type Feed } from '~~/shared/live/fold'
 import type { LiveEvent } from '~~/shared/live/types'
 
 interface DeskOptions {
@@ -25,6 +25,8 @@ export function useLiveDesk(exerciseId: string, opts: DeskOptions = {}) {
   const kept = shallowRef(snapshot.data.value)
   watch(snapshot.data, (d) => { if (d) kept.value = d })
   const data = computed(() => snapshot.data.value ?? kept.value)
+  // Scenario times on this page in the scenario's own time zone, UTC beside them.
+  watch(() => data.value?.timeZone, z => setScenarioZone(z), { immediate: true })
 
   let timer: ReturnType<typeof setTimeout> | null = null
   let poll: ReturnType<typeof setInterval> | null = null
@@ -69,5 +71,8 @@ export function useLiveDesk(exerciseId: string, opts: DeskOptions = {}) {
     return data.value ? Date.parse(data.value.scenarioNow) : null
   })
 
-  return { live, store, snapshot, data, feed, events, clock, scenarioNow, caughtUp, refreshSoon }
+  /** Nominal impact time of the latest published solution: from the live record once caught up. */
+  const impactTime = computed(() => (caughtUp.value ? latestImpactTime(store.events) : null) ?? data.value?.impactTime ?? null)
+
+  return { live, store, snapshot, data, feed, events, clock, scenarioNow, caughtUp, refreshSoon, impactTime }
 }

@@ -1,21 +1,40 @@
 // Words and numbers of the live desks: scenario times, spans, clock speed, ratings.
 import dayjs from 'dayjs'
+import timezone from 'dayjs/plugin/timezone'
 import utc from 'dayjs/plugin/utc'
 import type { ExerciseStatus, Rating } from '~~/shared/live/types'
+import { offsetText, zonedText } from '~~/shared/utils/zone'
 
 dayjs.extend(utc)
+dayjs.extend(timezone)
 
 const ms = (t: number | string) => (typeof t === 'number' ? t : Date.parse(t))
+const ZONE_KEY = 'bw-scenario-zone'
 
-/** `Thu 4 Mar 2031` (UTC). */
-export const scenarioDay = (t: number | string) => dayjs.utc(ms(t)).format('ddd D MMM YYYY')
-/** `09:00:12` (UTC). */
-export const scenarioClockText = (t: number | string) => dayjs.utc(ms(t)).format('HH:mm:ss')
-/** `4 Mar 09:00 UTC`, with the year when asked. */
-export const scenarioStamp = (
-  t: number | string,
-  withYear = false,
-) => `${dayjs.utc(ms(t)).format(withYear ? 'D MMM YYYY HH:mm' : 'D MMM HH:mm')} UTC`
+/**
+ * The time zone of the scenario on this page (IANA; `UTC` until a desk, the wall, the editor or the brief sets it):
+ * scenario times show local time with UTC beside it.
+ */
+export function scenarioZone(): string {
+  try { return tryUseNuxtApp() ? useState<string>(ZONE_KEY, () => 'UTC').value : 'UTC' }
+  catch { return 'UTC' }
+}
+/** Sets the page's scenario time zone (from the scenario's `clock.timeZone`). */
+export function setScenarioZone(zone: string | null | undefined): void {
+  useState<string>(ZONE_KEY, () => 'UTC').value = zone || 'UTC'
+}
+const inZone = (t: number | string) => dayjs(ms(t)).tz(scenarioZone())
+
+/** `Thu 4 Mar 2031` (local to the scenario). */
+export const scenarioDay = (t: number | string) => inZone(t).format('ddd D MMM YYYY')
+/** `09:00:12` (local to the scenario). */
+export const scenarioClockText = (t: number | string) => inZone(t).format('HH:mm:ss')
+/** `09:00:12` in UTC. */
+export const scenarioUtcClockText = (t: number | string) => dayjs.utc(ms(t)).format('HH:mm:ss')
+/** The scenario's offset from UTC at a moment: `UTC+1`; `UTC` in a UTC scenario. */
+export const scenarioOffset = (t: number | string) => (scenarioZone() === 'UTC' ? 'UTC' : offsetText(ms(t), scenarioZone()))
+/** `4 Mar 10:00 (UTC+1) · 09:00 UTC` (`4 Mar 09:00 UTC` in a UTC scenario), with the year when asked. */
+export const scenarioStamp = (t: number | string, withYear = false) => zonedText(ms(t), scenarioZone(), { year: withYear })
 /** Local wall time `14:32` (the room's own clock). */
 export const wallHm = (t: number | string) => dayjs(ms(t)).format('HH:mm')
 /** Local wall time `14:32:05`. */

@@ -3,17 +3,25 @@ import utc from 'dayjs/plugin/utc'
 
 dayjs.extend(utc)
 
-/** A scenario time (ISO with a zone) as the value of a `datetime-local` input, in UTC with seconds. */
-export function isoToInput(iso: string | undefined): string {
+/** A scenario time (ISO) as typed in a time field: `2031-03-04 06:30` (`:ss` when not zero), UTC, 24-hour. */
+export function isoToText(iso: string | undefined): string {
   const t = iso ? Date.parse(iso) : Number.NaN
-  return Number.isNaN(t) ? '' : new Date(t).toISOString().slice(0, 19)
+  if (Number.isNaN(t)) return ''
+  const s = new Date(t).toISOString()
+  return s.slice(17, 19) === '00' ? `${s.slice(0, 10)} ${s.slice(11, 16)}` : `${s.slice(0, 10)} ${s.slice(11, 19)}`
 }
 
-/** A `datetime-local` value read as UTC → `2031-03-04T21:40:00Z` ('' when empty). */
-export function inputToIso(value: string): string {
-  if (!value) return ''
-  const base = value.length === 16 ? `${value}:00` : value.slice(0, 19)
-  return `${base}Z`
+/** A typed time `2031-03-04 06:30[:ss]` (or with a T) read as UTC → `2031-03-04T06:30:00Z`; '' when empty; null when not a time. */
+export function textToIso(text: string): string | null {
+  const v = text.trim()
+  if (!v) return ''
+  const m = /^(\d{4})-(\d{2})-(\d{2})[ T](\d{2}):(\d{2})(?::(\d{2}))?Z?$/.exec(v)
+  if (!m) return null
+  const [, y, mo, d, h, mi, s = '00'] = m
+  const iso = `${y}-${mo}-${d}T${h}:${mi}:${s}Z`
+  const t = Date.parse(iso)
+  // Reject a day or hour that rolls over (2031-02-30, 24:10).
+  return !Number.isNaN(t) && new Date(t).toISOString().slice(0, 19) === iso.slice(0, 19) ? iso : null
 }
 
 /** `4 Mar 2031 06:30 UTC`. */

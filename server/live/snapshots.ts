@@ -1,4 +1,4 @@
-import { foldEvents, type Feed } from '#shared/live/fold'
+import { foldEvents, latestImpactTime, type Feed } from '#shared/live/fold'
 import { injectState, phaseAt } from '#shared/live/schedule'
 import { DRILL } from '#shared/live/visibility'
 import type { LiveView } from '#shared/live/types'
@@ -57,7 +57,8 @@ function windowed(feed: Feed) {
 export function liveSnapshot(exerciseId: string, view: LiveView) {
   const exercise = liveExercise(useDB(), exerciseId)
   const { clock, scenarioNow } = clockNow(exercise)
-  const feed = foldEvents(visibleEvents(exerciseId, view))
+  const events = visibleEvents(exerciseId, view)
+  const feed = foldEvents(events)
   const { scenario } = exercise
   const recent = windowed(feed)
   const base = {
@@ -67,6 +68,9 @@ export function liveSnapshot(exerciseId: string, view: LiveView) {
     phase: phaseAt(scenario, scenarioNow), phases: scenario.phases, teams: scenario.teams,
     currentSolution: feed.currentSolution, solutions: feed.solutions, drill: DRILL,
     sites: scenario.sites,
+    // Local time on every desk, and the countdown to the impact time of the latest published solution.
+    timeZone: scenario.clock.timeZone ?? 'UTC',
+    impactTime: latestImpactTime(events),
     injects: recent.injects,
   }
   // One union, discriminated by `desk`: the team room's share, the evaluator desk's, the control desk's.

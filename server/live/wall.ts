@@ -2,7 +2,7 @@ import { randomBytes } from 'node:crypto'
 import { and, desc, eq, isNull } from 'drizzle-orm'
 import { phaseAt } from '#shared/live/schedule'
 import { DRILL, rooms } from '#shared/live/visibility'
-import { foldEvents } from '#shared/live/fold'
+import { foldEvents, latestImpactTime } from '#shared/live/fold'
 import type { WallSolutionData } from '#shared/live/types'
 import { clockNow } from './clock'
 import { useIO } from './realtime'
@@ -65,6 +65,8 @@ export function wallSnapshot(exerciseId: string) {
     clock, scenarioNow: new Date(scenarioNow).toISOString(), serverTime: Date.now(),
     phase: phaseAt(exercise.scenario, scenarioNow), phases: exercise.scenario.phases,
     currentSolution: solution,
+    timeZone: exercise.scenario.clock.timeZone ?? 'UTC',
+    impactTime: latestImpactTime(events),
     injects: feed.injects.slice(-WALL_INJECTS).reverse().map(({
       key,
       title,

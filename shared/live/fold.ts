@@ -112,3 +112,10 @@ export function foldEvents(events: readonly LiveEvent[]): Feed {
   }
   return feed
 }
+
+/** The nominal impact time of the latest published solution a reader has (ISO), null before any. */
+export function latestImpactTime(events: readonly LiveEvent[]): string | null {
+  const last = events.filter(e => e.type === 'solution.published').at(-1)
+  if (last?.type !== 'solution.published') return null
+  return 'solution' in last.data ? last.data.solution.impactTime : last.data.impactTime ?? null
+}

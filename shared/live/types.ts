@@ -88,6 +88,8 @@ export interface WallSolutionData {
   label: string
   headline: Headline
   corridor: OrbitSolution['corridor']
+  /** Nominal impact time of the solution (ISO), for the wall's countdown. */
+  impactTime?: string
   impactPoints: Assessment['impactPoints']
   drill: DrillFlag
 }

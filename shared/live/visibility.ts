@@ -69,6 +69,7 @@ function wallSolution(d: SolutionPublishedData): WallSolutionData {
     label: d.label,
     headline: d.headline,
     corridor: d.solution.corridor,
+    impactTime: d.solution.impactTime,
     impactPoints: d.assessment.impactPoints,
     drill: d.drill,
   }

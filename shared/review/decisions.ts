@@ -118,7 +118,7 @@ export function decisionSummary(
     for (const teamKey of d.teams) {
       const all = responses.get(`${d.key}\u0000${teamKey}`) ?? []
       const f = all[0]
-      const responseMin = f ? (f.e.scenarioTime - e.scenarioTime - jumpedBetween(e.seq, f.e.seq)) / MIN : null
+      const responseMin = f ? Math.max(0, f.e.scenarioTime - e.scenarioTime - jumpedBetween(e.seq, f.e.seq)) / MIN : null
       const allowedMin = (deadline - e.scenarioTime) / MIN
       const status: DecisionStatus = f ? (f.d.late ? 'late' : 'on-time') : scenarioNow > deadline ? 'missed' : 'pending'
       rows.push({

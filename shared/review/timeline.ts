@@ -1,11 +1,14 @@
 /** The exercise timeline as rows: one per event of the record, for the exports and the review desk. */
 import type { StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
+import { localIsoText } from '../utils/zone'
 
 export interface TimelineRow {
   seq: number
   wallTime: string
   scenarioTime: string
+  /** Scenario time on the scenario's coast (its clock.timeZone), with the offset. */
+  scenarioLocal: string
   type: string
   actor: string
   teams: string
@@ -19,6 +22,7 @@ export const TIMELINE_COLUMNS: Array<{ key: keyof TimelineRow; label: string }> 
   { key: 'seq', label: 'Seq' },
   { key: 'wallTime', label: 'Wall time (UTC)' },
   { key: 'scenarioTime', label: 'Scenario time (UTC)' },
+  { key: 'scenarioLocal', label: 'Scenario time (local)' },
   { key: 'type', label: 'Event' },
   { key: 'actor', label: 'By' },
   { key: 'teams', label: 'Teams' },
@@ -106,6 +110,7 @@ export function timelineRows(events: StoredEvent[], actors: Map<string, string>,
     seq: e.seq,
     wallTime: new Date(e.wallTime).toISOString(),
     scenarioTime: new Date(e.scenarioTime).toISOString(),
+    scenarioLocal: localIsoText(e.scenarioTime, scenario?.clock.timeZone ?? 'UTC'),
     type: e.type,
     actor: e.actorId ? (actors.get(e.actorId) ?? 'former member') : 'Brinkwater (scheduler)',
     ...describe(e, scenario),

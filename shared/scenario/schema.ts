@@ -4,6 +4,7 @@
  * `checks.ts`, whose issues carry paths such as `injects[4].teams[0]`.
  */
 import { z } from 'zod'
+import { isTimeZone } from '../utils/zone'
 import { orbitSolutionSchema, siteSchema } from '../hazard/schema'
 import { checkScenario } from './checks'
 import { SCENARIO_FORMAT } from './constants'
@@ -36,6 +37,8 @@ export const clockSchema = z.strictObject({
   plannedWallMinutes: z.number().int().min(10).max(7 * 24 * 60),
   /** How long after impact the scenario runs on (default DEFAULT_AFTERMATH_DAYS). */
   aftermathDays: z.number().min(0).max(366).optional(),
+  /** The time zone of the scenario's coast (IANA, e.g. Europe/Lisbon): desks show its local time beside UTC. Absent: UTC. */
+  timeZone: z.string().max(64).refine(isTimeZone, 'an IANA time zone such as Europe/Lisbon').optional(),
 })
 
 export const phaseSchema = z.strictObject({

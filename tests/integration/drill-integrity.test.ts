@@ -142,3 +142,24 @@ describe('one set of numbers', () => {
     expect(brief.sites).toEqual(drill.sites)
   })
 })
+
+describe('local time', () => {
+  it('gives every desk the scenario\'s time zone and the nominal impact time of the latest solution; exports carry local time', async () => {
+    const c = await newLiveExercise('Local time drill')
+    const u = (p = '') => `/api/exercises/${c.id}${p}`
+    expect(scenario.clock.timeZone).toBe('Europe/Lisbon')
+    const before = (await c.science.client.get(u('/live'))).json
+    expect(before.timeZone).toBe('Europe/Lisbon')
+    expect(before.impactTime).toBeNull()
+    const s = scenario.solutions[0]!
+    expect((await c.facilitator.client.post(u(`/solutions/${s.key}/publish`), {})).status).toBe(201)
+    expect((await c.science.client.get(u('/live'))).json.impactTime).toBe(s.solution.impactTime)
+    const csv = (await c.facilitator.client.get(u('/timeline.csv'))).text
+    const lines = csv.split(/\r?\n/)
+    const at = lines.findIndex(l => l.startsWith('Seq,'))
+    const [head, first] = [lines[at]!, lines[at + 1]!]
+    expect(head).toContain('Scenario time (local)')
+    // Lisbon is UTC+0 in winter and UTC+1 in summer (civil calendar, common practice, no source).
+    expect(first).toMatch(/\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2} UTC\+[01]/)
+  })
+})

@@ -68,10 +68,10 @@ describe('timeline exports', () => {
     const headerAt = rows.findIndex(r => r[0] === 'Seq')
     const body = rows.slice(headerAt + 1)
     expect(body.map(r => Number(r[0]))).toEqual(json.events.map((e: { seq: number }) => e.seq))
-    expect(body.map(r => r[3])).toEqual(json.events.map((e: { type: string }) => e.type))
-    const response = body.find(r => r[3] === 'response.submitted')!
-    expect(response[9]).toBe(`'${FORMULA}`)
-    expect(body.find(r => r[3] === 'score.recorded')![9]).toBe('\'+ plain figures, late by an hour')
+    expect(body.map(r => r[4])).toEqual(json.events.map((e: { type: string }) => e.type))
+    const response = body.find(r => r[4] === 'response.submitted')!
+    expect(response[10]).toBe(`'${FORMULA}`)
+    expect(body.find(r => r[4] === 'score.recorded')![10]).toBe('\'+ plain figures, late by an hour')
     for (const r of body) for (const cell of r) expect(cell).not.toMatch(/^[=+\-@]/)
   })
 
@@ -85,7 +85,7 @@ describe('timeline exports', () => {
     const rows: unknown[][] = []
     ws.eachRow((row, n) => { if (n > 4) rows.push((row.values as unknown[]).slice(1)) })
     expect(rows.map(r => r[0])).toEqual(json.rows.map((r: { seq: number }) => r.seq))
-    expect(rows.map(r => r[8])).toEqual(json.rows.map((r: { summary: string }) => r.summary.replace(/^([=+\-@])/, '\'$1')))
-    expect(rows.find(r => r[3] === 'response.submitted')![9]).toBe(`'${FORMULA}`)
+    expect(rows.map(r => r[9])).toEqual(json.rows.map((r: { summary: string }) => r.summary.replace(/^([=+\-@])/, '\'$1')))
+    expect(rows.find(r => r[4] === 'response.submitted')![10]).toBe(`'${FORMULA}`)
   })
 })

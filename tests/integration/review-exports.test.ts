@@ -185,7 +185,8 @@ describe('the inject cards PDF', () => {
     const notify = pages.find(p => p.includes('Do we tell civil protection now?'))!
     expect(notify).toContain('As released')
     expect(notify).toContain('Informal heads-up to the Directorate\'s duty officer today')
-    expect(notify).toContain('Answer by 4 Mar 2031 18:00 UTC')
+    // Local time on the scenario's coast (Lisbon, UTC+0 in March), UTC beside it.
+    expect(notify).toContain('Answer by 4 Mar 2031 18:00 (UTC+0) · 18:00 UTC')
     const later = pages.find(p => p.includes('Define the evacuation zone'))!
     expect(later).toContain('Not released yet')
     expect(later).toContain('[exposedPopulation.windows]')

@@ -2,7 +2,7 @@ import type { Content } from 'pdfmake/interfaces'
 import { findHazardFields } from '#shared/scenario/fields'
 import type { Inject, Scenario } from '#shared/scenario/schema'
 import { renderDocument } from '../pdf-core'
-import { PDF_INK, pdfDocument, pdfTime, pt } from './layout'
+import { PDF_INK, pdfDocument, pdfTime, pt, setPdfZone } from './layout'
 import { markdownToPdf } from './markdown'
 
 /** An unreleased body with each hazard field shown by its name, `[energyMt.p50]`, for the facilitator to fill in. */
@@ -67,6 +67,7 @@ export interface CardsData {
  * writing space starts, the second fills the rest of its page with ruled lines (at least three).
  */
 export async function renderCards({ title, scenario, injects, states }: CardsData): Promise<Buffer> {
+  setPdfZone(scenario.clock.timeZone)
   const build = () => {
     const content = injects.flatMap((inj, idx) => card(inj, idx + 1, injects.length, scenario, states[idx]!))
     return pdfDocument(`Inject cards: ${title}`, `Inject cards — ${title}`, content.length ? content : [{ text: 'This scenario has no injects.' }])

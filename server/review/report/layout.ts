@@ -1,6 +1,7 @@
 import type { Content, ContentTable, DynamicContent, Node, NodeQueries, StyleDictionary, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import { breakLongWords, pdfSafe } from '#shared/review/pdftext'
 import { utcText } from '#shared/review/format'
+import { zonedText } from '#shared/utils/zone'
 import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
 
 /** The app's palette (tailwind.config.ts) for print. */
@@ -13,8 +14,19 @@ export const PDF_INK = {
 /** Text as the embedded fonts can print it, long words breakable (see shared/review/pdftext.ts). */
 export const pt = (s: string | number | null | undefined): string => breakLongWords(pdfSafe(s === null || s === undefined ? '' : String(s)))
 
-/** "4 Mar 2031 06:30 UTC". */
+let zone = 'UTC'
+/** The scenario's time zone for the document being laid out (each document sets it first; a worker lays out one at a time). */
+export function setPdfZone(timeZone: string | undefined): void {
+  zone = timeZone || 'UTC'
+}
+
+/** A scenario time: "4 Mar 2031 07:30 (UTC+1) · 06:30 UTC" ("4 Mar 2031 06:30 UTC" in a UTC scenario). */
 export function pdfTime(iso: string | null | undefined, withYear = true): string {
+  return pdfSafe(zonedText(iso, zone, { year: withYear }))
+}
+
+/** A wall-clock time of the drill itself, in UTC: "4 Mar 2031 06:30 UTC". */
+export function pdfWallTime(iso: string | null | undefined, withYear = true): string {
   return utcText(iso, { year: withYear })
 }
 

@@ -7,7 +7,9 @@ import { pdfSafe } from '#shared/review/pdftext'
 import { ROLE_LABELS, type ExerciseRole } from '#shared/utils/roles'
 import { threatChartSvg } from './chart'
 import type { ReportData } from './data'
-import { keepHeadingsWithText, paragraphs, PDF_INK, pdfDocument, pdfTable, pdfTime, pt, ratingCell, sectionHeading } from './layout'
+import {
+  keepHeadingsWithText, paragraphs, PDF_INK, pdfDocument, pdfTable, pdfTime, pdfWallTime, pt, ratingCell, sectionHeading, setPdfZone,
+} from './layout'
 
 type R = ReportData
 
@@ -35,11 +37,12 @@ function cover(d: R): Content[] {
   const rows: Array<[string, string]> = [
     ['Exercise', d.exercise.title],
     ['Scenario', `${d.scenario.title} (${d.scenario.key})`],
-    ['Drill run (wall clock)', `${pdfTime(d.exercise.startedAt)} to ${d.exercise.endedAt ? pdfTime(d.exercise.endedAt) : 'not ended'}`],
+    ['Drill run (wall clock)', `${pdfWallTime(d.exercise.startedAt)} to ${d.exercise.endedAt ? pdfWallTime(d.exercise.endedAt) : 'not ended'}`],
     ['Scenario time', `${pdfTime(d.scenario.clock.scenarioStart)} to impact ${pdfTime(d.scenario.clock.impactTime)}`],
     ['Participants', `${d.participants.total} members`],
     ['Record', `${d.eventCount} events`],
-    ['Report drawn up', pdfTime(d.generatedAt)],
+    ['Report drawn up', pdfWallTime(d.generatedAt)],
+    ['Scenario time zone', d.scenario.clock.timeZone ?? 'UTC'],
   ]
   return [
     { text: 'After-action report', fontSize: 28, bold: true, color: PDF_INK.heading, margin: [0, 60, 0, 4] },
@@ -56,7 +59,7 @@ function overview(d: R): Content[] {
     sectionHeading(1, 'Overview', true),
     // A description copied from the scenario summary is not repeated here (section 3 has it).
     ...(d.scenario.summary.startsWith(d.exercise.description.slice(0, 200)) ? [] : paragraphs(d.exercise.description)),
-    { text: pt(`${d.exercise.title} ran ${d.exercise.startedAt ? `from ${pdfTime(d.exercise.startedAt)}` : '(never started)'}${d.exercise.endedAt ? ` to ${pdfTime(d.exercise.endedAt)}` : ''} on the wall clock, playing the scenario "${d.scenario.title}" from ${pdfTime(d.scenario.clock.scenarioStart)} towards an impact at ${pdfTime(d.scenario.clock.impactTime)}. The record holds ${d.eventCount} events; ${d.decisions.rows.length} decisions were asked of the teams and ${d.scoring.evaluators.length} evaluators rated critical tasks.`), style: 'para' },
+    { text: pt(`${d.exercise.title} ran ${d.exercise.startedAt ? `from ${pdfWallTime(d.exercise.startedAt)}` : '(never started)'}${d.exercise.endedAt ? ` to ${pdfWallTime(d.exercise.endedAt)}` : ''} on the wall clock, playing the scenario "${d.scenario.title}" from ${pdfTime(d.scenario.clock.scenarioStart)} towards an impact at ${pdfTime(d.scenario.clock.impactTime)}. The record holds ${d.eventCount} events; ${d.decisions.rows.length} decisions were asked of the teams and ${d.scoring.evaluators.length} evaluators rated critical tasks.`), style: 'para' },
     { text: 'Participants by role and team', style: 'h2' },
     pdfTable(['Role', 'Team', 'People'], d.participants.groups.map(g => [g.roleLabel, g.teamName ?? '—', g.people.join(', ')]), [90, 150, '*']),
   ]
@@ -146,7 +149,7 @@ function timeline(d: R): Content[] {
   return [
     sectionHeading(5, 'Timeline (condensed)', true),
     { text: `${d.timeline.length} of the ${d.eventCount} events of the record: the clock, orbit solutions, releases and messages. Responses, ratings and observations follow in their own sections; the full record is in the timeline export (CSV, XLSX, JSON).`, style: 'muted', margin: [0, 0, 0, 4] },
-    pdfTable(['#', 'Scenario time', 'Wall time', 'Event', 'Teams'], d.timeline.map(r => [String(r.seq), pdfTime(r.scenarioTime), pdfTime(r.wallTime, false), r.summary, r.teams || 'all']), [18, 82, 64, '*', 110], { fontSize: 7.5 }),
+    pdfTable(['#', 'Scenario time', 'Wall time', 'Event', 'Teams'], d.timeline.map(r => [String(r.seq), pdfTime(r.scenarioTime), pdfWallTime(r.wallTime, false), r.summary, r.teams || 'all']), [18, 82, 64, '*', 110], { fontSize: 7.5 }),
   ]
 }
 
@@ -270,6 +273,7 @@ function plan(d: R): Content[] {
  * page). Pure: a worker thread renders it (reportPdf).
  */
 export function reportDocument(d: ReportData): TDocumentDefinitions {
+  setPdfZone(d.scenario.clock.timeZone)
   const content: Content[] = [
     ...cover(d), ...overview(d), ...objectives(d), ...scenarioSummary(d), ...threatSection(d), ...timeline(d),
     ...decisions(d), ...scores(d), ...observations(d), ...hotwashAndFeedback(d), ...findings(d), ...plan(d),
