@@ -47,11 +47,11 @@ export const LOW_V_INF_KMS = 1
 
 /**
  * Above this time of flight from the Hill sphere to the entry sphere, days, the engine warns `long-approach`.
- * Our choice (indicative): in 10 days the Moon (sidereal period 27.32 d) moves through 130° of its orbit and the
- * solar tide acts for a third of a month, so the two-body approach no longer screens the path fairly;
- * 10 days corresponds to v∞ of about 1.7 km/s.
+ * Our choice (indicative): in 7 days the Moon (sidereal period 27.32 d) moves through a quarter of its orbit and
+ * the solar tide acts for a quarter of a month, so the two-body approach from the edge of the Hill sphere no longer
+ * screens the path fairly; 7 days corresponds to v∞ of about 2.1 km/s (approachTimeS with b = 0).
  */
-export const LONG_APPROACH_DAYS = 10
+export const LONG_APPROACH_DAYS = 7
 
 /**
  * Fewer hits than this among the samples: the engine warns `few-hits` (relative standard error of the impact
