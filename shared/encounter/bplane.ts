@@ -191,15 +191,22 @@ function travelAzimuthDeg(f: EncounterFrame, xi: number, zeta: number, u: Float6
   return ((Math.atan2(east, north) / DEG) + 360) % 360
 }
 
+/** Input of findBPlanePoint: the encounter, and the ground target [lon, lat] in degrees at timeUtc. */
+export interface FindBPlaneInput {
+  vInfKmS: number
+  radiant: Radiant
+  timeUtc: TimeInput
+  target: readonly [number, number]
+  altitudeKm?: number
+}
+
 /**
  * The b-plane point whose entry lands on a given ground point at the given time (the inverse of entryFromBPlane):
  * the target fixes the plane of the orbit (through R̂ and the target) and the turn angle φ; b follows from φ(b),
  * which rises monotonically from 0 at b = 0 to its largest value at the capture radius, by bisection to 1e-9 km.
  * @returns the point, or null when the target is beyond the reach of this radiant and v∞ (near the anti-radiant)
  */
-export function findBPlanePoint(i: {
-  vInfKmS: number; radiant: Radiant; timeUtc: TimeInput; target: readonly [number, number]; altitudeKm?: number
-}): BPlanePoint | null {
+export function findBPlanePoint(i: FindBPlaneInput): BPlanePoint | null {
   const f = encounterFrame(i)
   const lam = i.target[0] * DEG + f.gmstRad, la = i.target[1] * DEG
   const T = [Math.cos(la) * Math.cos(lam), Math.cos(la) * Math.sin(lam), Math.sin(la)]

@@ -10,6 +10,6 @@ export {
   bPlaneAxes, captureRadiusKm, entrySpeedKmS, entryFromBPlane, findBPlanePoint, approachTimeS, turnAngleRad,
   encounterFrame, entryUnitInto, groundLonLat,
 } from './bplane'
-export type { Radiant, BPlanePoint, BPlaneEntry, BPlaneEntryInput, EncounterFrame } from './bplane'
+export type { Radiant, BPlanePoint, BPlaneEntry, BPlaneEntryInput, EncounterFrame, FindBPlaneInput } from './bplane'
 export { solutionFromEncounter, corridorFromHits, lineTrack, CORRIDOR_POINTS } from './solution'
 export type { EncounterInput, EncounterOptions, EncounterSolution, EncounterSolutionPart, EncounterWarning } from './solution'

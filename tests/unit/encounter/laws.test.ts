@@ -148,7 +148,8 @@ describe('statistical laws', () => {
     const angles: number[] = []
     for (let k = 0; k < n; k++) {
       const b = bc * Math.sqrt(rng.uniform()), a = 2 * Math.PI * rng.uniform()
-      const e = entryFromBPlane({ vInfKmS: v, radiant: { raDeg: 33, decDeg: 12 }, xiKm: b * Math.cos(a), zetaKm: b * Math.sin(a), timeUtc: T0 })
+      const xiKm = b * Math.cos(a), zetaKm = b * Math.sin(a)
+      const e = entryFromBPlane({ vInfKmS: v, radiant: { raDeg: 33, decDeg: 12 }, xiKm, zetaKm, timeUtc: T0 })
       if (e.hit) angles.push(e.entryAngleDeg!)
     }
     expect(angles.length).toBeGreaterThan(n * 0.999)

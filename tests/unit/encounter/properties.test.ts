@@ -16,7 +16,8 @@ const encounter = fc.record({
 })
 
 /** Unit vector of a ground point, for distances that do not care about the antimeridian. */
-const unit = (lon: number, lat: number) => [Math.cos(lat * DEG) * Math.cos(lon * DEG), Math.cos(lat * DEG) * Math.sin(lon * DEG), Math.sin(lat * DEG)]
+const unit = (lon: number, lat: number) =>
+  [Math.cos(lat * DEG) * Math.cos(lon * DEG), Math.cos(lat * DEG) * Math.sin(lon * DEG), Math.sin(lat * DEG)]
 const groundKm = (a: readonly [number, number], b: readonly [number, number]) => {
   const u = unit(a[0], a[1]), v = unit(b[0], b[1])
   return 2 * EARTH_RADIUS_KM * Math.asin(Math.min(1, Math.hypot(u[0]! - v[0]!, u[1]! - v[1]!, u[2]! - v[2]!) / 2))

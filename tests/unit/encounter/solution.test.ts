@@ -9,7 +9,8 @@ const base: EncounterInput = {
   vInfKmS: 15, radiant: { raDeg: 120, decDeg: -20 }, timeUtc: '2031-05-04T12:00:00Z',
   nominal: { xiKm: 2000, zetaKm: 1000 }, sigmaAlongKm: 3000, sigmaAcrossKm: 40, lineAngleDeg: 30,
 }
-const unit = (lon: number, lat: number) => [Math.cos(lat * DEG) * Math.cos(lon * DEG), Math.cos(lat * DEG) * Math.sin(lon * DEG), Math.sin(lat * DEG)]
+const unit = (lon: number, lat: number) =>
+  [Math.cos(lat * DEG) * Math.cos(lon * DEG), Math.cos(lat * DEG) * Math.sin(lon * DEG), Math.sin(lat * DEG)]
 const groundKm = (a: readonly number[], b: readonly number[]) => {
   const u = unit(a[0]!, a[1]!), v = unit(b[0]!, b[1]!)
   return 2 * EARTH_RADIUS_KM * Math.asin(Math.min(1, Math.hypot(u[0]! - v[0]!, u[1]! - v[1]!, u[2]! - v[2]!) / 2))
