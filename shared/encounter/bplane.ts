@@ -229,6 +229,24 @@ export function findBPlanePoint(i: FindBPlaneInput): BPlanePoint | null {
   return { xiKm: b * pXi / sinPhi, zetaKm: b * pZeta / sinPhi }
 }
 
+/** Earth's sidereal rotation rate, rad/s: 360.98564736629° per day of UT (Meeus 1998, eq. 12.4, linear term). */
+export const EARTH_ROTATION_RAD_S = 360.98564736629 * DEG / 86_400
+
+/**
+ * Arrival time at the sphere r of a body of impact parameter b, seconds, relative to the moment the b-plane cloud
+ * it belongs to is abreast (all points of a b-plane cross-section travel together far upstream, the b-plane picture):
+ * `τ(b) = t_r + (A/v∞) ln e`, with `t_r = (A/v∞)(e sinh F - F)`, `F = -arcosh((1 + r/A)/e)` the time from
+ * periapsis on the incoming branch. The `(A/v∞) ln e` term is what remains of the time from a far plane at the same
+ * distance for every sample, `v∞ t + d -> A ln(2d/(A e)) - A` (expansion of the hyperbolic Kepler equation; ours).
+ * Only differences of τ mean something; at large v∞ they tend to the straight-line `-sqrt(r² - b²)/v∞`.
+ */
+export function arrivalTimeS(bKm: number, vInfKmS: number, rKm = EARTH_RADIUS_KM): number {
+  const A = MU_EARTH_KM3S2 / (vInfKmS * vInfKmS)
+  const e = Math.sqrt(1 + (bKm / A) ** 2)
+  const F = -Math.acosh(Math.max(1, (1 + rKm / A) / e))
+  return (A / vInfKmS) * (e * Math.sinh(F) - F + Math.log(e))
+}
+
 /**
  * Time of flight on the incoming hyperbola from distance r1 to distance r2 (r1 >= r2 >= periapsis), seconds:
  * `t(r) = (A / v∞)(e sinh F - F)`, `r = A (e cosh F - 1)`, A = GM⊕/v∞² (hyperbolic Kepler equation; e.g. Murray &

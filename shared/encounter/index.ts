@@ -8,7 +8,7 @@ export { julianDateUtc, greenwichSiderealDeg, greenwichSiderealRad, timeMs } fro
 export type { TimeInput } from './sidereal'
 export {
   bPlaneAxes, captureRadiusKm, entrySpeedKmS, entryFromBPlane, findBPlanePoint, approachTimeS, turnAngleRad,
-  encounterFrame, entryUnitInto, groundLonLat,
+  encounterFrame, entryUnitInto, groundLonLat, arrivalTimeS, EARTH_ROTATION_RAD_S,
 } from './bplane'
 export type { Radiant, BPlanePoint, BPlaneEntry, BPlaneEntryInput, EncounterFrame, FindBPlaneInput } from './bplane'
 export { solutionFromEncounter, corridorFromHits, lineTrack, CORRIDOR_POINTS } from './solution'

@@ -2,7 +2,7 @@ import { HazardRng } from '../hazard/sampling'
 import type { LonLat, OrbitSolution } from '../hazard/schema'
 import { DEG, EARTH_RADIUS_KM, FEW_HITS, LONG_APPROACH_DAYS, LOW_V_INF_KMS } from './constants'
 import {
-  approachTimeS, encounterFrame, entryFromBPlane, entryUnitInto, groundLonLat,
+  approachTimeS, arrivalTimeS, encounterFrame, entryFromBPlane, entryUnitInto, groundLonLat, EARTH_ROTATION_RAD_S,
   type BPlaneEntry, type BPlanePoint, type EncounterFrame, type Radiant,
 } from './bplane'
 import type { TimeInput } from './sidereal'
@@ -12,7 +12,10 @@ export interface EncounterInput {
   /** Hyperbolic excess speed, km/s (> 0). */
   vInfKmS: number
   radiant: Radiant
-  /** When the nominal body reaches the entry sphere; every sample is taken to reach it at this time. */
+  /**
+   * When the nominal body reaches the entry sphere. The other samples cross the b-plane together with it and reach
+   * the sphere earlier or later by τ(b) - τ(b_nominal) (arrivalTimeS): the Earth turns meanwhile.
+   */
   timeUtc: TimeInput
   /** Nominal b-plane point, km (project axes: see bPlaneAxes). */
   nominal: BPlanePoint
@@ -66,12 +69,26 @@ const MAX_ALONG_SIGMA_KM = 20000
 export const CORRIDOR_POINTS = 241
 
 /**
+ * Turns the inertial entry vector tmp[0..2] of a body of impact parameter bKm into the Earth-fixed frame at its own
+ * arrival time `timeUtc + τ(b) - τ(b_nominal)` (see arrivalTimeS): a rotation about the pole by -(GMST + ω Δt).
+ */
+function earthFixedInto(f: EncounterFrame, tmp: Float64Array, bKm: number, tauNominalS: number, out: Float64Array, o: number): void {
+  const ang = f.gmstRad + EARTH_ROTATION_RAD_S * (arrivalTimeS(bKm, f.vInfKmS, f.rKm) - tauNominalS)
+  const c = Math.cos(ang), sn = Math.sin(ang)
+  out[o] = c * tmp[0]! + sn * tmp[1]!
+  out[o + 1] = -sn * tmp[0]! + c * tmp[1]!
+  out[o + 2] = tmp[2]!
+}
+
+/**
  * Ground track of a straight b-plane line `p(s) = origin + s (cos ψ, sin ψ)` for s in [s1, s2] (all inside the
  * capture disk): CORRIDOR_POINTS entry points spaced as `s = m - h cos(π j / (n - 1))`, denser towards the ends,
- * where the ground track stretches (dφ/db grows without bound at the capture radius).
- * @returns inertial unit vectors (3 per point), cumulative ground distance (km) and the parameters of each node
+ * where the ground track stretches (dφ/db grows without bound at the capture radius). Each point is placed on the
+ * Earth as it turns at that point's own arrival time (arrivalTimeS, relative to tauNominalS).
+ * @returns Earth-fixed unit vectors (3 per point), cumulative ground distance (km) and the parameters of each node
  */
-export function lineTrack(f: EncounterFrame, origin: BPlanePoint, lineAngleRad: number, s1: number, s2: number, n = CORRIDOR_POINTS) {
+export function lineTrack(f: EncounterFrame, origin: BPlanePoint, lineAngleRad: number, s1: number, s2: number, n = CORRIDOR_POINTS,
+  tauNominalS = 0) {
   const u = new Float64Array(3 * n), along = new Float64Array(n), s = new Float64Array(n)
   const tmp = new Float64Array(5)
   const m = 0.5 * (s1 + s2), h = 0.5 * (s2 - s1), c = Math.cos(lineAngleRad), sn = Math.sin(lineAngleRad)
@@ -81,7 +98,7 @@ export function lineTrack(f: EncounterFrame, origin: BPlanePoint, lineAngleRad: 
     s[j] = m - h * Math.cos(Math.PI * j / (n - 1))
     const xi = (origin.xiKm + s[j]! * c) * shrink, zeta = (origin.zetaKm + s[j]! * sn) * shrink
     if (!entryUnitInto(f, xi, zeta, tmp)) throw new RangeError('lineTrack: the line leaves the capture disk')
-    u[3 * j] = tmp[0]!; u[3 * j + 1] = tmp[1]!; u[3 * j + 2] = tmp[2]!
+    earthFixedInto(f, tmp, Math.hypot(xi, zeta), tauNominalS, u, 3 * j)
     if (j > 0) {
       const d = u[3 * j]! * u[3 * j - 3]! + u[3 * j + 1]! * u[3 * j - 2]! + u[3 * j + 2]! * u[3 * j - 1]!
       along[j] = along[j - 1]! + Math.acos(Math.min(1, d)) * EARTH_RADIUS_KM
@@ -102,7 +119,7 @@ export function lineTrack(f: EncounterFrame, origin: BPlanePoint, lineAngleRad: 
  *   within ± half-width: this gives the same variance), never beyond the widest hit;
  * - entrySpeedKmS: the entry speed (the same for every hit: it depends on v∞ and r only), sigma 0;
  * - entryAngleDeg: mean and standard deviation over the hits.
- * All samples reach the entry sphere at `timeUtc` (a simplification: see README). Values outside the schema's ranges
+ * Each hit's ground point is taken at its own arrival time (arrivalTimeS; see README). Values outside the schema's ranges
  * are clamped and named in `warnings`. Deterministic for a given seed (the project's HazardRng).
  */
 export function solutionFromEncounter(input: EncounterInput, options: EncounterOptions = {}): EncounterSolution {
@@ -204,7 +221,8 @@ export function corridorFromHits(f: EncounterFrame, input: EncounterInput, hitS:
     const mid = Math.min(hi, Math.max(lo, 0.5 * (s1 + s2)))
     s1 = Math.max(lo, mid - 1); s2 = Math.min(hi, mid + 1)
   }
-  const t = lineTrack(f, origin, psi, s1, s2)
+  const tauNom = arrivalTimeS(Math.hypot(input.nominal.xiKm, input.nominal.zetaKm), f.vInfKmS, f.rKm)
+  const t = lineTrack(f, origin, psi, s1, s2, CORRIDOR_POINTS, tauNom)
   const n = t.n, U = t.u, R = EARTH_RADIUS_KM
   // Tangent and normal of each node (central differences, made perpendicular to the node).
   const T = new Float64Array(3 * n), N = new Float64Array(3 * n)
@@ -219,12 +237,14 @@ export function corridorFromHits(f: EncounterFrame, input: EncounterInput, hitS:
     T[3 * j] = tx; T[3 * j + 1] = ty; T[3 * j + 2] = tz
     N[3 * j] = uy * tz - uz * ty; N[3 * j + 1] = uz * tx - ux * tz; N[3 * j + 2] = ux * ty - uy * tx
   }
-  const tmp = new Float64Array(5)
+  const tmp = new Float64Array(5), fixed = new Float64Array(3)
   const place = (s: number, c: number, out: Float64Array): boolean => {
-    if (!entryUnitInto(f, input.nominal.xiKm + s * cp - c * sp, input.nominal.zetaKm + s * sp + c * cp, tmp)) return false
+    const xi = input.nominal.xiKm + s * cp - c * sp, zeta = input.nominal.zetaKm + s * sp + c * cp
+    if (!entryUnitInto(f, xi, zeta, tmp)) return false
+    earthFixedInto(f, tmp, Math.hypot(xi, zeta), tauNom, fixed, 0)
     const x = Math.min(1, Math.max(-1, (t.m - s) / (t.h || 1)))
     const j = Math.min(n - 1, Math.max(0, Math.round(Math.acos(x) * (n - 1) / Math.PI)))
-    const dx = tmp[0]! - U[3 * j]!, dy = tmp[1]! - U[3 * j + 1]!, dz = tmp[2]! - U[3 * j + 2]!
+    const dx = fixed[0]! - U[3 * j]!, dy = fixed[1]! - U[3 * j + 1]!, dz = fixed[2]! - U[3 * j + 2]!
     out[0] = t.along[j]! + R * (dx * T[3 * j]! + dy * T[3 * j + 1]! + dz * T[3 * j + 2]!)
     out[1] = R * (dx * N[3 * j]! + dy * N[3 * j + 1]! + dz * N[3 * j + 2]!)
     return true
@@ -246,12 +266,12 @@ export function corridorFromHits(f: EncounterFrame, input: EncounterInput, hitS:
     nominalAlong = median(alongs)
     let j = 0
     while (j < n - 1 && t.along[j + 1]! < nominalAlong) j++
-    nominal = groundLonLat(U[3 * j]!, U[3 * j + 1]!, U[3 * j + 2]!, f.gmstRad)
+    nominal = groundLonLat(U[3 * j]!, U[3 * j + 1]!, U[3 * j + 2]!, 0)
   }
   let sumA2 = 0
   for (let k = 0; k < hits; k++) sumA2 += (alongs[k]! - nominalAlong) ** 2
   const path: LonLat[] = []
-  for (let j = 0; j < n; j++) path.push(groundLonLat(U[3 * j]!, U[3 * j + 1]!, U[3 * j + 2]!, f.gmstRad))
+  for (let j = 0; j < n; j++) path.push(groundLonLat(U[3 * j]!, U[3 * j + 1]!, U[3 * j + 2]!, 0))
   let halfWidthKm = Math.min(Math.sqrt(3 * sumC2 / hits), maxC)
   if (halfWidthKm > MAX_HALF_WIDTH_KM) {
     warnings.push({ code: 'width-clamped', message: `The corridor half-width ${halfWidthKm.toFixed(0)} km is set to ${MAX_HALF_WIDTH_KM} km.` })
