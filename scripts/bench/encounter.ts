@@ -51,4 +51,5 @@ const entryUs = (performance.now() - t) * 1000 / n
 t = performance.now()
 for (let k = 0; k < 2000; k++) sink += findBPlanePoint({ ...base, target: [-20 + (k % 40), 20 + (k % 30)] })?.xiKm ?? 0
 const findUs = (performance.now() - t) * 1000 / 2000
-console.log(`entryFromBPlane: ${entryUs.toFixed(2)} µs per call; findBPlanePoint: ${findUs.toFixed(2)} µs per call (checksum ${sink.toFixed(0)})`)
+console.log(`entryFromBPlane: ${entryUs.toFixed(2)} µs per call; findBPlanePoint: ${findUs.toFixed(2)} µs per call`
+  + ` (checksum ${sink.toFixed(0)})`)

@@ -199,7 +199,9 @@ export function solutionFromEncounter(input: EncounterInput, options: EncounterO
 function clamp(v: number, range: readonly [number, number], warnings: EncounterWarning[], code: EncounterWarning['code'],
   what: string, unit: string): number {
   const c = Math.min(range[1], Math.max(range[0], v))
-  if (c !== v) warnings.push({ code, message: `The ${what} ${v.toFixed(2)} ${unit} is outside ${range[0]}–${range[1]} ${unit}: set to ${c}.` })
+  if (c !== v) {
+    warnings.push({ code, message: `The ${what} ${v.toFixed(2)} ${unit} is outside ${range[0]}–${range[1]} ${unit}: set to ${c}.` })
+  }
   return c
 }
 
@@ -274,7 +276,8 @@ export function corridorFromHits(f: EncounterFrame, input: EncounterInput, hitS:
   for (let j = 0; j < n; j++) path.push(groundLonLat(U[3 * j]!, U[3 * j + 1]!, U[3 * j + 2]!, 0))
   let halfWidthKm = Math.min(Math.sqrt(3 * sumC2 / hits), maxC)
   if (halfWidthKm > MAX_HALF_WIDTH_KM) {
-    warnings.push({ code: 'width-clamped', message: `The corridor half-width ${halfWidthKm.toFixed(0)} km is set to ${MAX_HALF_WIDTH_KM} km.` })
+    const message = `The corridor half-width ${halfWidthKm.toFixed(0)} km is set to ${MAX_HALF_WIDTH_KM} km.`
+    warnings.push({ code: 'width-clamped', message })
     halfWidthKm = MAX_HALF_WIDTH_KM
   }
   return { path, halfWidthKm, nominal, alongTrackSigmaKm: Math.min(MAX_ALONG_SIGMA_KM, Math.sqrt(sumA2 / hits)) }

@@ -22,7 +22,7 @@ describe('constants and the two-body laws', () => {
     expect(captureRadiusKm(20, 100)).toBeCloseTo(6471 * Math.sqrt(1 + 2 * MU_EARTH_KM3S2 / 6471 / 400), 6)
   })
 
-  it('entry speed sqrt(v∞² + v_esc²) (energy conservation): 11.186 km/s from rest, 22.916 km/s at v∞ = 20, agrees with the hazard engine', () => {
+  it('entry speed sqrt(v∞² + v_esc²) (energy conservation): 11.186 km/s from rest, 22.916 km/s at v∞ = 20, as the hazard engine', () => {
     expect(entrySpeedKmS(1e-9)).toBeCloseTo(11.186, 3)
     expect(entrySpeedKmS(20)).toBeCloseTo(22.916, 3)
     for (const v of [1, 5, 12, 30, 70]) expect(Math.abs(entrySpeedKmS(v) - entrySpeedFromVInfKmS(v))).toBeLessThan(0.01)
@@ -77,7 +77,7 @@ describe('entry geometry', () => {
     const ax = bPlaneAxes(r)
     const cross = [ax.xi[1]! * ax.zeta[2]! - ax.xi[2]! * ax.zeta[1]!, ax.xi[2]! * ax.zeta[0]! - ax.xi[0]! * ax.zeta[2]!,
       ax.xi[0]! * ax.zeta[1]! - ax.xi[1]! * ax.zeta[0]!]
-    // ξ̂ × ζ̂ = -η̂ ... with η̂ = -R̂ the motion: (ξ̂, η̂, ζ̂) right-handed means ζ̂ × ξ̂ = η̂, i.e. ξ̂ × ζ̂ = R̂.
+    // (ξ̂, η̂, ζ̂) right-handed with η̂ = -R̂ (the motion) means ζ̂ × ξ̂ = η̂, i.e. ξ̂ × ζ̂ = R̂.
     cross.forEach((v, k) => expect(v).toBeCloseTo(ax.radiant[k]!, 12))
   })
 
