@@ -283,6 +283,29 @@ export function corridorFromHits(f: EncounterFrame, input: EncounterInput, hitS:
   return { path, halfWidthKm, nominal, alongTrackSigmaKm: Math.min(MAX_ALONG_SIGMA_KM, Math.sqrt(sumA2 / hits)) }
 }
 
+/**
+ * Ground track of the whole line of variations: the b-plane line through the nominal point at lineAngleDeg, over its
+ * chord inside the capture disk, each point at its own arrival time (as the corridor). For the editor's map.
+ * @param points number of points, 2..2000 (default CORRIDOR_POINTS)
+ * @returns [lon, lat] points in degrees from the -s end to the +s end, or null when the line misses the Earth
+ */
+export function lineOfVariationsTrack(
+  input: Pick<EncounterInput, 'vInfKmS' | 'radiant' | 'timeUtc' | 'nominal' | 'lineAngleDeg' | 'altitudeKm'>,
+  points = CORRIDOR_POINTS,
+): LonLat[] | null {
+  if (!Number.isInteger(points) || points < 2 || points > 2000) throw new RangeError('points must be an integer in 2..2000')
+  const f = encounterFrame(input)
+  const psi = input.lineAngleDeg * DEG, o = input.nominal
+  const od = o.xiKm * Math.cos(psi) + o.zetaKm * Math.sin(psi)
+  const disc = od * od - (o.xiKm ** 2 + o.zetaKm ** 2) + f.bCapKm ** 2
+  if (!(disc > 0)) return null
+  const tauNom = arrivalTimeS(Math.hypot(o.xiKm, o.zetaKm), f.vInfKmS, f.rKm)
+  const t = lineTrack(f, o, psi, -od - Math.sqrt(disc), -od + Math.sqrt(disc), points, tauNom)
+  const path: LonLat[] = []
+  for (let j = 0; j < t.n; j++) path.push(groundLonLat(t.u[3 * j]!, t.u[3 * j + 1]!, t.u[3 * j + 2]!, 0))
+  return path
+}
+
 function median(xs: Float64Array): number {
   const s = Float64Array.from(xs).sort()
   return s[Math.floor(s.length / 2)]!

@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest'
 import {
-  solutionFromEncounter, findBPlanePoint, entryFromBPlane, captureRadiusKm, EARTH_RADIUS_KM, MU_EARTH_KM3S2, DEG,
+  solutionFromEncounter, findBPlanePoint, lineOfVariationsTrack, arrivalTimeS, entryFromBPlane, captureRadiusKm,
+  EARTH_RADIUS_KM, MU_EARTH_KM3S2, DEG,
   type EncounterInput,
 } from '../../../shared/encounter/index'
 import { orbitSolutionSchema, assessSolution } from '../../../shared/hazard/index'
@@ -112,5 +113,39 @@ describe('solutionFromEncounter', () => {
   it('keeps the nominal entry consistent with entryFromBPlane and the time given', () => {
     const s = solutionFromEncounter(base, { samples: 100 })
     expect(s.encounter.nominalEntry).toEqual(entryFromBPlane({ ...base, xiKm: 2000, zetaKm: 1000 }))
+  })
+
+  it('copes with a point cloud (no spread): a 2-km stub of track at the nominal point, zero widths', () => {
+    const s = solutionFromEncounter({ ...base, sigmaAlongKm: 0, sigmaAcrossKm: 0 }, { samples: 200 })
+    expect(s.impactProbability).toBe(1)
+    expect(s.corridor!.alongTrackSigmaKm).toBeLessThan(1e-6)
+    expect(s.corridor!.halfWidthKm).toBeLessThan(1e-6)
+    expect(groundKm(s.corridor!.nominal, s.corridor!.path[120]!)).toBeLessThan(5)
+    expect(s.entryAngleDeg.sigma).toBeLessThan(1e-6)
+  })
+})
+
+describe('lineOfVariationsTrack', () => {
+  it('runs from grazing end to grazing end through the nominal ground point, as one continuous track', () => {
+    const track = lineOfVariationsTrack({ ...base, nominal: { xiKm: 1500, zetaKm: -700 } }, 400)!
+    expect(track.length).toBe(400)
+    const nominal = entryFromBPlane({ ...base, xiKm: 1500, zetaKm: -700 })
+    const steps = track.slice(1).map((p, k) => groundKm(track[k]!, p))
+    const total = steps.reduce((a, b) => a + b, 0)
+    expect(Math.max(...steps)).toBeLessThan(0.05 * total)
+    expect(Math.min(...track.map(p => groundKm(p, [nominal.lon!, nominal.lat!])))).toBeLessThan(total / 100)
+    // The ends graze: the chord of the line with the capture disk, each end at its own arrival time.
+    const bc = captureRadiusKm(15), psi = base.lineAngleDeg * DEG, o = { xiKm: 1500, zetaKm: -700 }
+    const od = o.xiKm * Math.cos(psi) + o.zetaKm * Math.sin(psi)
+    const half = Math.sqrt(od * od - (o.xiKm ** 2 + o.zetaKm ** 2) + bc * bc)
+    const tauNom = arrivalTimeS(Math.hypot(o.xiKm, o.zetaKm), 15)
+    for (const [s, end] of [[-od - half, track[0]!], [-od + half, track.at(-1)!]] as const) {
+      const xi = (o.xiKm + s * Math.cos(psi)) * (1 - 1e-12), zeta = (o.zetaKm + s * Math.sin(psi)) * (1 - 1e-12)
+      const dt = arrivalTimeS(Math.hypot(xi, zeta), 15) - tauNom
+      const e = entryFromBPlane({ ...base, timeUtc: Date.parse(base.timeUtc as string) + 1000 * dt, xiKm: xi, zetaKm: zeta })
+      expect(e.entryAngleDeg!).toBeLessThan(0.01)
+      expect(groundKm(end, [e.lon!, e.lat!])).toBeLessThan(1)
+    }
+    expect(lineOfVariationsTrack({ ...base, nominal: { xiKm: 2 * bc, zetaKm: 0 }, lineAngleDeg: 90 })).toBeNull()
   })
 })
