@@ -238,7 +238,8 @@ export const EARTH_ROTATION_RAD_S = 360.98564736629 * DEG / 86_400
  * `τ(b) = t_r + (A/v∞) ln e`, with `t_r = (A/v∞)(e sinh F - F)`, `F = -arcosh((1 + r/A)/e)` the time from
  * periapsis on the incoming branch. The `(A/v∞) ln e` term is what remains of the time from a far plane at the same
  * distance for every sample, `v∞ t + d -> A ln(2d/(A e)) - A` (expansion of the hyperbolic Kepler equation; ours).
- * Only differences of τ mean something; at large v∞ they tend to the straight-line `-sqrt(r² - b²)/v∞`.
+ * Only differences of τ mean something; at large v∞ they tend to the straight-line `-sqrt(r² - b²)/v∞`. For a body
+ * that misses (b > capture radius) F is 0: τ is then its periapsis passage.
  */
 export function arrivalTimeS(bKm: number, vInfKmS: number, rKm = EARTH_RADIUS_KM): number {
   const A = MU_EARTH_KM3S2 / (vInfKmS * vInfKmS)

@@ -13,8 +13,9 @@ export interface EncounterInput {
   vInfKmS: number
   radiant: Radiant
   /**
-   * When the nominal body reaches the entry sphere. The other samples cross the b-plane together with it and reach
-   * the sphere earlier or later by τ(b) - τ(b_nominal) (arrivalTimeS): the Earth turns meanwhile.
+   * When the nominal body reaches the entry sphere (a nominal that misses: its periapsis passage). The other samples
+   * cross the b-plane together with it and reach the sphere earlier or later by τ(b) - τ(b_nominal) (arrivalTimeS):
+   * the Earth turns meanwhile.
    */
   timeUtc: TimeInput
   /** Nominal b-plane point, km (project axes: see bPlaneAxes). */
@@ -65,6 +66,8 @@ const SPEED_RANGE = [11.2, 72] as const
 const ANGLE_RANGE = [5, 90] as const
 const MAX_HALF_WIDTH_KM = 5000
 const MAX_ALONG_SIGMA_KM = 20000
+/** Most samples one call may draw (two Float64Arrays of this length are allocated). */
+export const MAX_SAMPLES = 2_000_000
 /** Points of the corridor path (the schema allows 2 to 2000). */
 export const CORRIDOR_POINTS = 241
 
@@ -124,7 +127,9 @@ export function lineTrack(f: EncounterFrame, origin: BPlanePoint, lineAngleRad: 
  */
 export function solutionFromEncounter(input: EncounterInput, options: EncounterOptions = {}): EncounterSolution {
   const samples = options.samples ?? 20_000, seed = options.seed ?? 1
-  if (!Number.isInteger(samples) || samples < 1) throw new RangeError('samples must be a positive integer')
+  if (!Number.isInteger(samples) || samples < 1 || samples > MAX_SAMPLES) {
+    throw new RangeError(`samples must be an integer in 1..${MAX_SAMPLES}`)
+  }
   if (!(input.sigmaAlongKm >= 0) || !(input.sigmaAcrossKm >= 0)) throw new RangeError('sigmas must be >= 0')
   const f = encounterFrame(input)
   const rng = new HazardRng(seed)

@@ -81,6 +81,15 @@ describe('entry geometry', () => {
     cross.forEach((v, k) => expect(v).toBeCloseTo(ax.radiant[k]!, 12))
   })
 
+  it('travels on, away from the sub-radiant point: azimuth 90° for ξ > 0 and 0° for ζ > 0 at an equatorial radiant', () => {
+    const r = { raDeg: 80, decDeg: 0 }
+    const east = entryFromBPlane({ vInfKmS: 20, radiant: r, xiKm: 3000, zetaKm: 0, timeUtc: T0 })
+    const north = entryFromBPlane({ vInfKmS: 20, radiant: r, xiKm: 0, zetaKm: 3000, timeUtc: T0 })
+    expect(east.azimuthDeg!).toBeCloseTo(90, 9)
+    expect(Math.min(north.azimuthDeg!, 360 - north.azimuthDeg!)).toBeCloseTo(0, 9)
+    expect(entryFromBPlane({ vInfKmS: 20, radiant: r, xiKm: 0, zetaKm: 0, timeUtc: T0 }).azimuthDeg).toBeNull()
+  })
+
   it('grazes (entry angle → 0) at the capture radius and misses just beyond it', () => {
     const v = 12, b = captureRadiusKm(v)
     const g = entryFromBPlane({ vInfKmS: v, radiant: { raDeg: 0, decDeg: 0 }, xiKm: b * (1 - 1e-12), zetaKm: 0, timeUtc: T0 })
