@@ -94,7 +94,7 @@ test('a short drill across the control desk, two team rooms, the evaluator desk 
   await expect(card).toBeVisible()
   await expect(card).toContainText('Do we tell civil protection now?')
   await expect(card.getByTestId('inject-body')).toContainText('impact probability')
-  await expect(card.getByTestId('deadline')).toContainText('Answer by 4 Mar 18:00 UTC')
+  await expect(card.getByTestId('deadline')).toContainText('Answer by 4 Mar 18:00 (UTC+0) · 18:00 UTC')
 
   // The civil room does not see science's traffic.
   await expect(civ.page.getByTestId('room-empty')).toBeVisible()

@@ -18,7 +18,8 @@ export default defineNitroPlugin((nitroApp) => {
     finally { busy = false }
   }
   // The worker threads (assessments, PDFs) start now rather than on the first request that needs them.
-  warmWorkers().catch(err => console.error('[workers] could not start the worker threads:', err))
+  // (After the server's modules have all run: the workers' file is found from the server entry.)
+  setTimeout(() => warmWorkers().catch(err => console.error('[workers] could not start the worker threads:', err)), 0)
   const first = setTimeout(() => void tick(), 0)
   const timer = setInterval(() => void tick(), schedulerIntervalMs)
   nitroApp.hooks.hook('close', () => {

@@ -69,7 +69,11 @@ export function reviewOverview(exerciseId: string, access: ExerciseAccess) {
     timeline: rows.map(r => ({ ...r, teamKeys: facets.get(r.seq)?.teamKeys ?? [], phaseKey: facets.get(r.seq)?.phaseKey ?? null })),
     lastSeq: events.at(-1)?.seq ?? 0,
     role,
-    can: { write: hasCapability(access.standing, 'review.write'), export: hasCapability(access.standing, 'review.export') },
+    can: {
+      write: hasCapability(access.standing, 'review.write'), export: hasCapability(access.standing, 'review.export'),
+      // The live desks this reader may open from the review (the evaluator desk follows every team's traffic).
+      evaluate: access.view.kind === 'evaluator' || access.view.kind === 'control', control: hasCapability(access.standing, 'live.control'),
+    },
   }
 }
 

@@ -32,7 +32,9 @@ function poolSize(): number {
 }
 
 async function spawn(): Promise<Slot> {
-  const worker = new Worker(new URL(workerUrl()), { workerData: { fonts: await pdfFonts() } })
+  const fonts = await pdfFonts()
+  // The entry's URL is read only now: it depends on the server entry having run (see server/build/worker-chunks.ts).
+  const worker = new Worker(new URL(workerUrl()), { workerData: { fonts } })
   // Idle workers do not keep the process alive; a busy one is waited for through its job's promise.
   worker.unref()
   const slot: Slot = { worker, job: null, timer: null }

@@ -2,6 +2,7 @@
 // whole (three anonymous 200 MiB posts took the server from 0.4 to 1.9 GB). Own server, so that its memory can be read.
 import { readFileSync } from 'node:fs'
 import { request } from 'node:http'
+import { connect } from 'node:net'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO } from '../support/client'
 import { Http, TestServer } from '../support/test-server'
@@ -21,32 +22,44 @@ function rssMiB(): number {
 }
 
 /**
- * Posts `totalMiB` of body in 1 MiB chunks with chunked transfer encoding (no Content-Length), and stops sending as
- * soon as the server answers. Resolves with the status and how much was sent before the answer.
+ * Posts `totalMiB` of body in 1 MiB chunks with chunked transfer encoding (no Content-Length), over a raw socket, and
+ * stops sending as soon as the server answers. Resolves with the status and how much was sent before the answer. A raw
+ * socket reads the answer even when the server closes the connection under a write still going out (EPIPE), which
+ * an HTTP client request reports as an error instead of the answer.
  */
 function postChunked(path: string, totalMiB: number, headers: Record<string, string>): Promise<{ status: number; sentMiB: number }> {
   return new Promise((resolve, reject) => {
     const url = new URL(path, server.base)
-    const req = request(url, { method: 'POST', headers: { ...headers, 'transfer-encoding': 'chunked' } })
+    const sock = connect(Number(url.port), url.hostname)
     const chunk = Buffer.alloc(1024 * 1024, 'a')
+    const frame = Buffer.concat([Buffer.from(`${chunk.length.toString(16)}\r\n`), chunk, Buffer.from('\r\n')])
     let sent = 0
-    let answered = false
-    req.on('response', (res) => {
-      answered = true
-      res.resume()
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, sentMiB: sent }))
-    })
-    // The server may close the connection right after its answer, while chunks are still being written: the write then
-    // fails (EPIPE, ECONNRESET) just before the answer is read. Give the answer a moment before calling it a failure.
-    req.on('error', (e) => { setTimeout(() => { if (!answered) reject(e) }, 1000) })
-    const pump = () => {
-      while (!answered && sent < totalMiB) {
-        sent++
-        if (!req.write(chunk)) { req.once('drain', pump); return }
+    let status = 0
+    let heard = ''
+    sock.on('data', (d: Buffer) => {
+      heard += d.toString('latin1')
+      const m = /^HTTP\/1\.1 (\d{3})/.exec(heard)
+      if (m && !status) {
+        status = Number(m[1])
+        resolve({ status, sentMiB: sent })
+        sock.destroy()
       }
-      if (!answered) req.end()
-    }
-    pump()
+    })
+    sock.on('error', (e) => { setTimeout(() => { if (!status) reject(e) }, 1000) })
+    sock.on('close', () => { setTimeout(() => { if (!status) reject(new Error('closed without an answer')) }, 1000) })
+    sock.on('connect', () => {
+      const head = [`POST ${url.pathname}${url.search} HTTP/1.1`, `Host: ${url.host}`, 'Transfer-Encoding: chunked',
+        ...Object.entries(headers).map(([k, v]) => `${k}: ${v}`), '', ''].join('\r\n')
+      sock.write(head)
+      const pump = () => {
+        while (!status && sent < totalMiB && !sock.destroyed) {
+          sent++
+          if (!sock.write(frame)) { sock.once('drain', pump); return }
+        }
+        if (!status && !sock.destroyed) sock.write('0\r\n\r\n')
+      }
+      pump()
+    })
   })
 }
 
