@@ -66,6 +66,8 @@ export function wallSnapshot(exerciseId: string) {
     phase: phaseAt(exercise.scenario, scenarioNow), phases: exercise.scenario.phases,
     currentSolution: solution,
     timeZone: exercise.scenario.clock.timeZone ?? 'UTC',
+    // The places of the scenario, named on the wall's map (no figures of theirs: the wall has no assessment).
+    sites: exercise.scenario.sites,
     impactTime: latestImpactTime(events),
     injects: feed.injects.slice(-WALL_INJECTS).reverse().map(({
       key,

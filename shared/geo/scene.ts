@@ -160,3 +160,22 @@ export function pointsPath(points: MapScene['points'], kind: PointKind, k = 1, t
   }
   return parts.join('')
 }
+
+/**
+ * A scale bar for the map at zoom `k`: the longest round distance (1, 2 or 5 × 10ⁿ km) that spans at most `maxPx`
+ * screen pixels at the centre of the frame, measured east–west along the projection there. Null when the centre
+ * is off the globe.
+ */
+export function scaleBar(projection: GeoProjection, width: number, height: number, k = 1, maxPx = 160): { km: number; px: number } | null {
+  const centre = projection.invert?.([width / 2, height / 2])
+  if (!centre || !Number.isFinite(centre[0]) || !Number.isFinite(centre[1])) return null
+  const a = projection(centre as [number, number])
+  const b = projection(destination(centre as [number, number], 90, 100))
+  if (!a || !b) return null
+  const pxPerKm = Math.hypot(b[0] - a[0], b[1] - a[1]) / 100 * k
+  if (!(pxPerKm > 0)) return null
+  const want = maxPx / pxPerKm
+  const pow = 10 ** Math.floor(Math.log10(want))
+  const km = [5, 2, 1].map(m => m * pow).find(x => x <= want) ?? pow
+  return { km, px: km * pxPerKm }
+}
