@@ -27,7 +27,7 @@ for (const [width, height, name] of [[1280, 720, '1280x720'], [1920, 1080, '1920
     const title = await box('wall-title')
     const clock = await box('live-clock')
     // The title is not cut off (two lines at most) and the clock does not overlap it.
-    expect(await page.getByTestId('wall-title').evaluate(el => el.scrollHeight <= el.clientHeight + 1)).toBe(true)
+    expect(await page.getByTestId('wall-title').evaluate(el => el.scrollHeight <= el.clientHeight + 1 && el.scrollWidth <= el.clientWidth + 1)).toBe(true)
     const overlap = title.x < clock.x + clock.width && clock.x < title.x + title.width
       && title.y < clock.y + clock.height && clock.y < title.y + title.height
     expect(overlap).toBe(false)
