@@ -48,7 +48,7 @@ export async function seedDemo(): Promise<void> {
     if (!scenario) throw new Error(`The demo scenario "${DEMO_SCENARIO_KEY}" is missing from ${scenariosDir()}`)
     exercise = startExercise(scenario, {
       title: DEMO_EXERCISE_TITLE,
-      description: 'A fictional object is found on course for the sea off an invented stretch of coast. Ready to start.',
+      description: 'A fictional object is found on course for the sea off an invented stretch of coast.',
     }, facilitator)
   }
   for (const a of DEMO_ACCOUNTS) {

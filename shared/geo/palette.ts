@@ -27,7 +27,7 @@ export interface MapPalette {
 
 export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
   light: {
-    sea: '#d6f1fb', land: '#f3f6f8', coast: '#7189a0', borders: '#9fb1c1', graticule: '#74cdee',
+    sea: '#d6f1fb', land: '#ebe6d9', coast: '#526c84', borders: '#9fb1c1', graticule: '#74cdee',
     corridor: '#f07b10', corridorEdge: '#ab420b', earlier: '#526c84', text: '#17202c', halo: '#ffffff',
     points: { sea: '#0d5c81', land: '#c22f45', air: '#17202c' },
     ring: '#9f2339',

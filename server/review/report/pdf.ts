@@ -54,12 +54,16 @@ function cover(d: R): Content[] {
   ]
 }
 
+/** "1 evaluator", "3 evaluators". */
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`
+const EXERCISE_STATUS_TEXT: Record<string, string> = { planned: 'not started', running: 'running', paused: 'paused', ended: 'ended' }
+
 function overview(d: R): Content[] {
   return [
     sectionHeading(1, 'Overview', true),
     // A description copied from the scenario summary is not repeated here (section 3 has it).
     ...(d.scenario.summary.startsWith(d.exercise.description.slice(0, 200)) ? [] : paragraphs(d.exercise.description)),
-    { text: pt(`${d.exercise.title} ran ${d.exercise.startedAt ? `from ${pdfWallTime(d.exercise.startedAt)}` : '(never started)'}${d.exercise.endedAt ? ` to ${pdfWallTime(d.exercise.endedAt)}` : ''} on the wall clock, playing the scenario "${d.scenario.title}" from ${pdfTime(d.scenario.clock.scenarioStart)} towards an impact at ${pdfTime(d.scenario.clock.impactTime)}. The record holds ${d.eventCount} events; ${d.decisions.rows.length} decisions were asked of the teams and ${d.scoring.evaluators.length} evaluators rated critical tasks.`), style: 'para' },
+    { text: pt(`${d.exercise.title} ran ${d.exercise.startedAt ? `from ${pdfWallTime(d.exercise.startedAt)}` : '(never started)'}${d.exercise.endedAt ? ` to ${pdfWallTime(d.exercise.endedAt)}` : ''} on the wall clock, playing the scenario "${d.scenario.title}" from ${pdfTime(d.scenario.clock.scenarioStart)} towards an impact at ${pdfTime(d.scenario.clock.impactTime)}. The record holds ${d.eventCount} events; ${plural(d.decisions.rows.length, 'decision was', 'decisions were')} asked of the teams and ${plural(d.scoring.evaluators.length, 'evaluator', 'evaluators')} rated critical tasks. Status when this report was drawn up: ${EXERCISE_STATUS_TEXT[d.exercise.status] ?? d.exercise.status}.`), style: 'para' },
     { text: 'Participants by role and team', style: 'h2' },
     pdfTable(['Role', 'Team', 'People'], d.participants.groups.map(g => [g.roleLabel, g.teamName ?? '—', g.people.join(', ')]), [90, 150, '*']),
   ]
