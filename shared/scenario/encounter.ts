@@ -1,0 +1,147 @@
+/**
+ * The `encounter:` block of a solution entry: the close-encounter geometry (radiant, v∞, time, nominal b-plane point
+ * and its uncertainty) from which the encounter engine (shared/encounter) computes the solution's impact probability,
+ * corridor, entry speed and entry angle. `applyEncounter` writes those four fields; `checkEncounters` reports a
+ * solution that disagrees with its own encounter, so that a file stays consistent. For training exercises only.
+ */
+import { z } from 'zod'
+import { solutionFromEncounter } from '../encounter'
+import type { EncounterSolution } from '../encounter'
+import type { OrbitSolution } from '../hazard/schema'
+import { scenarioTimeSchema } from './time'
+
+/** Largest distance of a nominal b-plane point from the Earth's centre, km (a lunar distance: beyond it, no encounter). */
+export const MAX_B_PLANE_KM = 400_000
+/** Samples per encounter: 1 000 to 200 000 (default 20 000 in the engine). */
+export const ENCOUNTER_SAMPLES = { min: 1000, max: 200_000 } as const
+
+export const encounterSchema = z.strictObject({
+  /** Hyperbolic excess speed, km/s (1–70: slower approaches are shaped by the Sun and Moon, faster ones exceed 72 km/s entry). */
+  vInfKmS: z.number().min(1).max(70),
+  /** Geocentric radiant (where the body comes from), of date, degrees. */
+  radiant: z.strictObject({ raDeg: z.number().min(0).max(360), decDeg: z.number().min(-90).max(90) }),
+  /** When the nominal body reaches the ground (ISO 8601). */
+  timeUtc: scenarioTimeSchema,
+  /** Nominal b-plane point, km (project axes: ξ east, ζ north; see shared/encounter/README.md). */
+  nominal: z.strictObject({
+    xiKm: z.number().min(-MAX_B_PLANE_KM).max(MAX_B_PLANE_KM),
+    zetaKm: z.number().min(-MAX_B_PLANE_KM).max(MAX_B_PLANE_KM),
+  }),
+  /** 1-sigma uncertainty along the line of variations and across it, km. */
+  sigmaAlongKm: z.number().min(0).max(1_000_000),
+  sigmaAcrossKm: z.number().min(0).max(100_000),
+  /** Direction of the line of variations from ξ towards ζ, degrees. */
+  lineAngleDeg: z.number().min(-360).max(360),
+  samples: z.number().int().min(ENCOUNTER_SAMPLES.min).max(ENCOUNTER_SAMPLES.max).optional(),
+  seed: z.number().int().min(0).max(2 ** 31 - 1).optional(),
+})
+export type ScenarioEncounter = z.infer<typeof encounterSchema>
+
+/** Tolerances of checkEncounters: impact probability (absolute) and nominal impact point (km). */
+export const ENCOUNTER_TOLERANCE = { probability: 0.005, nominalKm: 5 } as const
+
+const cache = new Map<string, EncounterSolution>()
+
+/** The engine's result for an encounter (cached: the editor and the checker ask for the same ones again and again). */
+export function encounterSolution(encounter: ScenarioEncounter): EncounterSolution {
+  const key = JSON.stringify(encounter)
+  let result = cache.get(key)
+  if (!result) {
+    const { samples, seed, ...input } = encounter
+    result = solutionFromEncounter(input, { samples, seed })
+    if (cache.size >= 64) cache.delete(cache.keys().next().value as string)
+    cache.set(key, result)
+  }
+  return result
+}
+
+const round = (v: number, digits: number) => Number(v.toFixed(digits))
+const lonLat = ([lon, lat]: readonly [number, number]): [number, number] => [round(lon, 4), round(lat, 4)]
+
+/** Great-circle distance, km (spherical Earth, R = 6371 km). */
+export function greatCircleKm([lon1, lat1]: readonly [number, number], [lon2, lat2]: readonly [number, number]): number {
+  const rad = Math.PI / 180
+  const h = Math.sin(((lat2 - lat1) * rad) / 2) ** 2
+    + Math.cos(lat1 * rad) * Math.cos(lat2 * rad) * Math.sin(((lon2 - lon1) * rad) / 2) ** 2
+  return 2 * 6371 * Math.asin(Math.min(1, Math.sqrt(h)))
+}
+
+/** Every `step`-th node of a track (both ends kept), with the nominal point inserted beside its nearest node. */
+function thinTrack(path: ReadonlyArray<[number, number]>, nominal: [number, number], step: number): Array<[number, number]> {
+  const out = path.filter((_, i) => i % step === 0 || i === path.length - 1).map(lonLat)
+  let j = 0
+  out.forEach((p, i) => { if (greatCircleKm(p, nominal) < greatCircleKm(out[j]!, nominal)) j = i })
+  if (greatCircleKm(out[j]!, nominal) < 0.01) return out
+  const before = out[j - 1], after = out[j + 1]
+  // Insert on the side of the neighbour nearer to the nominal point.
+  const at = !after || (before && greatCircleKm(before, nominal) < greatCircleKm(after, nominal)) ? j : j + 1
+  out.splice(at, 0, nominal)
+  return out
+}
+
+/** Node step of a stored corridor: the engine's 241 nodes thinned to 61 (plus the nominal point). */
+const TRACK_STEP = 4
+
+/**
+ * The entry with `solution.impactProbability`, `corridor`, `entrySpeedKmS` and `entryAngleDeg` computed from its
+ * encounter (rounded for the file: 4 decimals of a degree, 0.1 km); every other field is kept. Without an encounter,
+ * or when no sample hits (no corridor), the corridor is kept and only the other fields follow the encounter.
+ */
+export function applyEncounter<E extends { solution: OrbitSolution; encounter?: ScenarioEncounter }>(entry: E): E {
+  if (!entry.encounter) return entry
+  const r = encounterSolution(entry.encounter)
+  const solution: OrbitSolution = {
+    ...entry.solution,
+    impactProbability: r.impactProbability,
+    entrySpeedKmS: { mean: round(r.entrySpeedKmS.mean, 2), sigma: round(r.entrySpeedKmS.sigma, 2) },
+    entryAngleDeg: { mean: round(r.entryAngleDeg.mean, 1), sigma: round(r.entryAngleDeg.sigma, 1) },
+  }
+  if (r.corridor) {
+    const nominal = lonLat(r.corridor.nominal)
+    solution.corridor = {
+      path: thinTrack(r.corridor.path, nominal, TRACK_STEP),
+      halfWidthKm: round(r.corridor.halfWidthKm, 1),
+      nominal,
+      alongTrackSigmaKm: round(r.corridor.alongTrackSigmaKm, 1),
+    }
+  }
+  return { ...entry, solution }
+}
+
+/** A disagreement between a solution and its encounter, at a path into the scenario. */
+export interface EncounterIssue { path: Array<string | number>; message: string }
+
+/**
+ * Solutions whose figures disagree with their own `encounter:`: impact probability off by more than
+ * ENCOUNTER_TOLERANCE.probability, or the corridor's nominal point more than ENCOUNTER_TOLERANCE.nominalKm away.
+ */
+export function checkEncounters(solutions: ReadonlyArray<{ solution: OrbitSolution; encounter?: ScenarioEncounter }>): EncounterIssue[] {
+  const issues: EncounterIssue[] = []
+  solutions.forEach((entry, i) => {
+    if (!entry.encounter) return
+    const path = ['solutions', i, 'solution']
+    let r: EncounterSolution
+    try { r = encounterSolution(entry.encounter) }
+    catch (e) {
+      issues.push({ path: ['solutions', i, 'encounter'], message: `the encounter cannot be computed: ${(e as Error).message}` })
+      return
+    }
+    const p = entry.solution.impactProbability
+    if (Math.abs(p - r.impactProbability) > ENCOUNTER_TOLERANCE.probability) {
+      issues.push({
+        path: [...path, 'impactProbability'],
+        message: `impact probability ${p} disagrees with the encounter (${r.impactProbability}): apply the encounter again`,
+      })
+    }
+    if (r.corridor) {
+      const d = greatCircleKm(entry.solution.corridor.nominal, r.corridor.nominal)
+      if (d > ENCOUNTER_TOLERANCE.nominalKm) {
+        issues.push({
+          path: [...path, 'corridor', 'nominal'],
+          message: `the nominal impact point is ${Math.round(d)} km from the encounter's (${lonLat(r.corridor.nominal).join(', ')}): apply the encounter again`,
+        })
+      }
+    }
+  })
+  return issues
+}
