@@ -66,21 +66,39 @@ export function greatCircleKm([lon1, lat1]: readonly [number, number], [lon2, la
   return 2 * 6371 * Math.asin(Math.min(1, Math.sqrt(h)))
 }
 
-/** Every `step`-th node of a track (both ends kept), with the nominal point inserted beside its nearest node. */
+/** Distance of a point from a short segment, km, in the local plane of the point (equirectangular). */
+function segmentKm(p: readonly [number, number], a: readonly [number, number], b: readonly [number, number]): number {
+  const k = 111.195, c = Math.cos(p[1] * Math.PI / 180)
+  const wrap = (d: number) => ((((d + 180) % 360) + 360) % 360) - 180
+  const ax = wrap(a[0] - p[0]) * k * c, ay = (a[1] - p[1]) * k, bx = wrap(b[0] - p[0]) * k * c, by = (b[1] - p[1]) * k
+  const dx = bx - ax, dy = by - ay, len2 = dx * dx + dy * dy
+  const t = len2 > 0 ? Math.min(1, Math.max(0, -(ax * dx + ay * dy) / len2)) : 0
+  return Math.hypot(ax + t * dx, ay + t * dy)
+}
+
+/**
+ * Every `step`-th node of a track (both ends kept). When the nominal point lies on the track (within
+ * NOMINAL_ON_TRACK_KM of a segment), it becomes a node itself, so that the thinned track still passes through it; a
+ * broad cloud's nominal point can lie off the hits' track (see shared/encounter/README.md), and is then left off it.
+ */
 function thinTrack(path: ReadonlyArray<[number, number]>, nominal: [number, number], step: number): Array<[number, number]> {
   const out = path.filter((_, i) => i % step === 0 || i === path.length - 1).map(lonLat)
-  let j = 0
-  out.forEach((p, i) => { if (greatCircleKm(p, nominal) < greatCircleKm(out[j]!, nominal)) j = i })
-  if (greatCircleKm(out[j]!, nominal) < 0.01) return out
-  const before = out[j - 1], after = out[j + 1]
-  // Insert on the side of the neighbour nearer to the nominal point.
-  const at = !after || (before && greatCircleKm(before, nominal) < greatCircleKm(after, nominal)) ? j : j + 1
-  out.splice(at, 0, nominal)
+  let best = -1, bestKm = Infinity
+  for (let i = 0; i + 1 < out.length; i++) {
+    const d = segmentKm(nominal, out[i]!, out[i + 1]!)
+    if (d < bestKm) { bestKm = d; best = i }
+  }
+  if (best < 0 || bestKm > NOMINAL_ON_TRACK_KM) return out
+  if (out.some(p => greatCircleKm(p, nominal) < 0.01)) return out
+  out.splice(best + 1, 0, [nominal[0], nominal[1]])
   return out
 }
 
-/** Node step of a stored corridor: the engine's 241 nodes thinned to 61 (plus the nominal point). */
-const TRACK_STEP = 4
+/** Largest distance of the nominal point from the thinned track at which it is put on the track, km. */
+const NOMINAL_ON_TRACK_KM = 3
+
+/** Node step of a stored corridor: the engine's 241 nodes thinned to 41 (plus the nominal point). */
+const TRACK_STEP = 6
 
 /**
  * The entry with `solution.impactProbability`, `corridor`, `entrySpeedKmS` and `entryAngleDeg` computed from its
