@@ -37,6 +37,10 @@ export const encounterSchema = z.strictObject({
 })
 export type ScenarioEncounter = z.infer<typeof encounterSchema>
 
+/** Most samples that the checks of one scenario draw in all (about a quarter of a second): a file cannot ask for more. */
+export const ENCOUNTER_SAMPLE_BUDGET = 1_000_000
+const DEFAULT_SAMPLES = 20_000
+
 /** Tolerances of checkEncounters: impact probability (absolute) and nominal impact point (km). */
 export const ENCOUNTER_TOLERANCE = { probability: 0.005, nominalKm: 5 } as const
 
@@ -131,12 +135,22 @@ export interface EncounterIssue { path: Array<string | number>; message: string 
 
 /**
  * Solutions whose figures disagree with their own `encounter:`: impact probability off by more than
- * ENCOUNTER_TOLERANCE.probability, or the corridor's nominal point more than ENCOUNTER_TOLERANCE.nominalKm away.
+ * ENCOUNTER_TOLERANCE.probability, or the corridor's nominal point more than ENCOUNTER_TOLERANCE.nominalKm away;
+ * encounters beyond ENCOUNTER_SAMPLE_BUDGET samples in all are not computed but reported.
  */
 export function checkEncounters(solutions: ReadonlyArray<{ solution: OrbitSolution; encounter?: ScenarioEncounter }>): EncounterIssue[] {
   const issues: EncounterIssue[] = []
+  let drawn = 0
   solutions.forEach((entry, i) => {
     if (!entry.encounter) return
+    drawn += entry.encounter.samples ?? DEFAULT_SAMPLES
+    if (drawn > ENCOUNTER_SAMPLE_BUDGET) {
+      issues.push({
+        path: ['solutions', i, 'encounter', 'samples'],
+        message: `the encounters of this scenario draw more than ${ENCOUNTER_SAMPLE_BUDGET.toLocaleString('en-GB')} samples in all: give fewer samples`,
+      })
+      return
+    }
     const path = ['solutions', i, 'solution']
     let r: EncounterSolution
     try { r = encounterSolution(entry.encounter) }

@@ -15,6 +15,6 @@ export { parseScenarioYaml, stringifyScenario, validateScenario, formatIssuePath
 export type { ScenarioIssue, ScenarioError, ParseResult, ValidateResult } from './io'
 export {
   encounterSchema, encounterSolution, applyEncounter, checkEncounters, greatCircleKm,
-  ENCOUNTER_TOLERANCE, ENCOUNTER_SAMPLES, MAX_B_PLANE_KM,
+  ENCOUNTER_TOLERANCE, ENCOUNTER_SAMPLES, ENCOUNTER_SAMPLE_BUDGET, MAX_B_PLANE_KM,
 } from './encounter'
 export type { ScenarioEncounter, EncounterIssue } from './encounter'

@@ -3,7 +3,8 @@ import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { findBPlanePoint, greenwichSiderealDeg } from '../../../shared/encounter'
 import {
-  ENCOUNTER_TOLERANCE, applyEncounter, checkEncounters, encounterSchema, formatScenarioError, greatCircleKm, parseScenarioYaml,
+  ENCOUNTER_SAMPLE_BUDGET, ENCOUNTER_TOLERANCE, applyEncounter, checkEncounters, encounterSchema, formatScenarioError, greatCircleKm,
+  parseScenarioYaml,
   solutionEntrySchema, validateScenario,
 } from '../../../shared/scenario'
 import type { ScenarioEncounter, SolutionEntry } from '../../../shared/scenario'
@@ -112,6 +113,16 @@ describe('checkEncounters and the scenario checks', () => {
     const r = validateScenario(s)
     expect(r.ok).toBe(false)
     if (!r.ok) expect(r.errors.map(e => e.path)).toContain('solutions[0].solution.impactProbability')
+  })
+
+  it('draws no more than the sample budget for one scenario, and says so', () => {
+    const solutions = withEncounter()
+    const one = applyEncounter({ ...solutions[0]!, encounter: { ...encounter(5000, 300), samples: 200_000 } })
+    const big = Array.from({ length: 6 }, () => one)
+    const issues = checkEncounters(big)
+    expect(issues.map(i => i.path)).toContainEqual(['solutions', 5, 'encounter', 'samples'])
+    expect(issues.every(i => i.path.at(-1) === 'samples')).toBe(true)
+    expect(5 * 200_000).toBeLessThanOrEqual(ENCOUNTER_SAMPLE_BUDGET)
   })
 
   it('tolerates small differences (rounding in a file)', () => {
