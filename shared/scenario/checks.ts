@@ -1,14 +1,15 @@
 /**
  * Cross-reference checks of a scenario whose shapes already passed: unknown or duplicate keys,
  * times outside the scenario, deadlines before their inject, solutions out of order, a water depth of
- * 0 m under a nominal impact point at sea, shore-profile fields on an inland site, and the hazard
- * fields of inject bodies.
+ * 0 m under a nominal impact point at sea, a solution that disagrees with its encounter, shore-profile
+ * fields on an inland site, and the hazard fields of inject bodies.
  */
 import type { Scenario } from './schema'
 import { BUILT_IN_INJECT_KINDS, DEFAULT_AFTERMATH_DAYS } from './constants'
 import { findHazardFields, validateHazardFields } from './fields'
 import { scenarioTime } from './time'
 import { isLand } from '../hazard/land'
+import { checkEncounters } from './encounter'
 
 export type IssuePath = Array<string | number>
 
@@ -89,6 +90,8 @@ export function checkScenario(s: Scenario): CheckIssue[] {
         `the nominal impact point (${lon}, ${lat}) is at sea: give the water depth there (0 m means land)`)
     }
   })
+
+  for (const issue of checkEncounters(s.solutions)) add(issue.path, issue.message)
 
   // Shore-profile fields only act on coastal sites, which an offshore depth marks.
   s.sites.forEach((site, i) => {

@@ -13,3 +13,8 @@ export { HAZARD_FIELDS, findHazardFields, validateHazardFields, renderHazardFiel
 export type { HazardFieldSpec, HazardFieldRef, HazardFieldIssue } from './fields'
 export { parseScenarioYaml, stringifyScenario, validateScenario, formatIssuePath, formatScenarioError } from './io'
 export type { ScenarioIssue, ScenarioError, ParseResult, ValidateResult } from './io'
+export {
+  encounterSchema, encounterSolution, applyEncounter, checkEncounters, greatCircleKm,
+  ENCOUNTER_TOLERANCE, ENCOUNTER_SAMPLES, ENCOUNTER_SAMPLE_BUDGET, MAX_B_PLANE_KM,
+} from './encounter'
+export type { ScenarioEncounter, EncounterIssue } from './encounter'

@@ -9,6 +9,7 @@ import { orbitSolutionSchema, siteSchema } from '../hazard/schema'
 import { checkScenario } from './checks'
 import { SCENARIO_FORMAT } from './constants'
 import { scenarioTimeSchema } from './time'
+import { encounterSchema } from './encounter'
 
 /** A stable key: lower-case letters, digits and dashes, as site ids. */
 export const keySchema = z.string().regex(/^[a-z0-9][a-z0-9-]{0,62}$/, 'lower-case letters, digits and dashes (max 63)')
@@ -54,6 +55,8 @@ export const solutionEntrySchema = z.strictObject({
   releaseAt: scenarioTimeSchema,
   /** The estimate itself, as the hazard engine takes it (unknown keys rejected, not dropped). */
   solution: z.strictObject(orbitSolutionSchema.shape),
+  /** The close encounter this solution is computed from (see encounter.ts): its figures must agree with it. */
+  encounter: encounterSchema.optional(),
 })
 
 export const decisionSchema = z.strictObject({
