@@ -191,6 +191,15 @@ test('the after-action lead reviews a drill, edits the plan and downloads every 
     expect(p.replace(/\s+/g, ' ')).toContain('for training only')
     expect(p.replace(/\s+/g, ' ')).toContain(`Page ${i + 1} of ${pages.length}`)
   })
+
+  // On a tablet (820 px), no tab of the review desk runs off the side of the page (it ran 246 px over).
+  await page.setViewportSize({ width: 820, height: 1180 })
+  for (const tab of ['timeline', 'replay', 'decisions', 'plan']) {
+    await page.goto(`/exercises/${ex}/review?tab=${tab}`)
+    await expect(page.getByTestId(`review-tab-${tab}`)).toHaveAttribute('data-state', 'active')
+    const over = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)
+    expect(over, tab).toBeLessThanOrEqual(0)
+  }
 })
 
 test('a player is told the review desk is not theirs', async ({ page, request }) => {

@@ -43,8 +43,10 @@ describe('the review desk', () => {
     expect(res.json.exercise.status).toBe('ended')
     expect(res.json.exercise.startedAt).toBeTruthy()
     expect(res.json.exercise.endedAt).toBeTruthy()
-    expect(res.json.can).toEqual({ write: true, export: true })
-    expect((await d.evaluator.client.get(url('/review'))).json.can).toEqual({ write: false, export: false })
+    // The analyst may also follow the drill on the evaluator desk; only the facilitator runs it.
+    expect(res.json.can).toEqual({ write: true, export: true, evaluate: true, control: false })
+    expect((await d.evaluator.client.get(url('/review'))).json.can).toEqual({ write: false, export: false, evaluate: true, control: false })
+    expect((await d.facilitator.client.get(url('/review'))).json.can).toMatchObject({ evaluate: true, control: true })
   })
 
   it('times each decision from release to the first response, against the deadline', async () => {
