@@ -120,7 +120,7 @@ test('a short drill across the control desk, two team rooms, the evaluator desk 
   await evInject.getByRole('button', { name: 'Operational Coordination' }).click()
   const task = ev.page.locator('[data-criterion="notification-and-coordination"] [data-task="notify-early"]')
   await expect(task).toBeVisible()
-  await task.getByText('Performed without challenges').click()
+  await task.getByText('Done as intended: complete, in time, no outside help').click()
   await task.getByLabel('Note').fill('Heads-up given within the hour, figures as odds.')
   await task.getByTestId('score-save').click()
   await expect(task.getByTestId('task-rating')).toHaveText('P')

@@ -4,6 +4,7 @@ import timezone from 'dayjs/plugin/timezone'
 import utc from 'dayjs/plugin/utc'
 import type { ExerciseStatus, Rating } from '~~/shared/live/types'
 import { offsetText, zonedText } from '~~/shared/utils/zone'
+import { RATING_LABELS } from '~~/shared/review/plan'
 
 dayjs.extend(utc)
 dayjs.extend(timezone)
@@ -69,13 +70,8 @@ export const STATUS_WORDS: Record<ExerciseStatus, string> = {
   ended: 'Ended',
 }
 
-/** The four ratings of a critical task, in words (after the public US exercise doctrine). */
-export const RATING_MEANINGS: Record<Rating, string> = {
-  P: 'Performed without challenges',
-  S: 'Performed with some challenges',
-  M: 'Performed with major challenges',
-  U: 'Unable to be performed',
-}
+/** The four ratings of a critical task, in words (one wording: shared/review/plan.ts). */
+export const RATING_MEANINGS: Record<Rating, string> = RATING_LABELS
 
 /** Inject kinds in words: `decision-request` → `Decision request`. */
 export const kindText = (kind: string) => (kind.charAt(0).toUpperCase() + kind.slice(1)).replaceAll('-', ' ')

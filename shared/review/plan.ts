@@ -4,7 +4,7 @@ export const FINDING_KINDS = ['strength', 'improvement'] as const
 export type FindingKind = typeof FINDING_KINDS[number]
 export const FINDING_KIND_LABELS: Record<FindingKind, string> = { strength: 'Strength', improvement: 'Area for improvement' }
 
-/** The capability elements of the trade (POETE: planning, organization, equipment, training, exercises). */
+/** Where a corrective action lands: the five capability elements practitioners name (plans, organisation, equipment, training, drills). */
 export const POETE_ELEMENTS = ['planning', 'organization', 'equipment', 'training', 'exercises'] as const
 export type PoeteElement = typeof POETE_ELEMENTS[number]
 export const POETE_LABELS: Record<PoeteElement, string> = {
@@ -45,11 +45,14 @@ export const FEEDBACK_QUESTIONS = [
 export type FeedbackQuestion = typeof FEEDBACK_QUESTIONS[number]['key']
 export const FEEDBACK_SCALE = ['Strongly disagree', 'Disagree', 'Neither', 'Agree', 'Strongly agree'] as const
 
-/** The ratings of critical tasks (public US exercise doctrine: performed without challenges, with some, with major, unable). */
+/**
+ * The four ratings of a critical task, P, S, M and U as the trade writes them; what each means is said here in
+ * Brinkwater's own words: by what the team's work did to the outcome.
+ */
 export const RATINGS = ['P', 'S', 'M', 'U'] as const
 export const RATING_LABELS: Record<typeof RATINGS[number], string> = {
-  P: 'Performed without challenges',
-  S: 'Performed with some challenges',
-  M: 'Performed with major challenges',
-  U: 'Unable to be performed',
+  P: 'Done as intended: complete, in time, no outside help',
+  S: 'Done, with slips that did not change the outcome',
+  M: 'Done in part, or late or rough enough to hurt the outcome',
+  U: 'Not done, or done in a way that defeated its purpose',
 }
