@@ -60,6 +60,7 @@ export function useLiveDesk(exerciseId: string, opts: DeskOptions = {}) {
       ...emptyFeed(), injects, solutions: d.solutions, currentSolution: d.currentSolution, clock: d.clock, lastSeq: d.lastSeq,
       responses: injects.flatMap(i => i.responses),
       scores: staff.scores ?? [], observations: staff.observations ?? [], held: staff.held ?? [],
+      teamMessages: (d as Partial<Pick<Feed, 'teamMessages'>>).teamMessages ?? [],
     }
   })
   // The store appends in place: a fresh array lets child components see that it changed.

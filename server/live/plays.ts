@@ -96,3 +96,29 @@ export function recordObservation(
     return { event, created: true }
   })
 }
+
+/**
+ * A team's message to control, or to another team through control (control reads it and passes it on or answers):
+ * recorded as `team.message` for the sending team and control (evaluators read it too). The same idempotency key
+ * sends it once.
+ */
+export function sendTeamMessage(
+  exerciseId: string,
+  user: User,
+  membership: Membership,
+  input: { to: string; body: string; idempotencyKey: string },
+) {
+  return liveWrite(exerciseId, (w) => {
+    const again = findIdempotent(w.tx, exerciseId, user.id, input.idempotencyKey, 'team.message')
+    if (again) return { event: again, created: false }
+    if (w.exercise.status === 'ended') throw exerciseEnded()
+    const from = membership.teamKey ?? ''
+    if (input.to !== 'control' && !w.exercise.scenario.teams.some(t => t.key === input.to)) throw badField('to', 'no such team')
+    if (input.to === from) throw badField('to', 'write to control or to another team')
+    const event = w.append({
+      type: 'team.message', audience: `teams:${from}`, actorId: user.id, idempotencyKey: input.idempotencyKey,
+      data: { id: randomUUID(), from, to: input.to, body: input.body, by: by(user) },
+    })
+    return { event, created: true }
+  })
+}

@@ -72,6 +72,8 @@ export function liveSnapshot(exerciseId: string, view: LiveView) {
     timeZone: scenario.clock.timeZone ?? 'UTC',
     impactTime: latestImpactTime(events),
     injects: recent.injects,
+    // The messages the teams wrote (a player's snapshot has its own team's only: the record's audience).
+    teamMessages: feed.teamMessages.slice(-200),
   }
   // One union, discriminated by `desk`: the team room's share, the evaluator desk's, the control desk's.
   if (view.kind === 'player') return { ...base, desk: 'room' as const }

@@ -3,7 +3,7 @@
  * with their current body and revision history, responses, solutions, scores and observations.
  * The server builds its snapshots with it and the client store derives the same from its feed.
  */
-import type { ClockDto, Headline, InjectData, InjectHeldData, LiveEvent, ObservationData, ResponseData, ScoreData, SolutionPublishedData, WallSolutionData } from './types'
+import type { ClockDto, Headline, InjectData, InjectHeldData, LiveEvent, ObservationData, ResponseData, ScoreData, SolutionPublishedData, TeamMessageData, WallSolutionData } from './types'
 
 interface Stamp { seq: number; scenarioTime: string; wallTime: string }
 
@@ -11,6 +11,7 @@ export interface FeedRevision { revision: number; body: string; solutionKey: str
 export type FeedResponse = ResponseData & Stamp
 export type FeedScore = ScoreData & Stamp
 export type FeedObservation = ObservationData & Stamp
+export type FeedTeamMessage = TeamMessageData & Stamp
 
 export interface FeedInject extends InjectData {
   releasedSeq: number
@@ -34,6 +35,8 @@ export interface Feed {
   responses: FeedResponse[]
   scores: FeedScore[]
   observations: FeedObservation[]
+  /** Messages from teams (to control, or to another team through control), oldest first. */
+  teamMessages: FeedTeamMessage[]
   held: Array<InjectHeldData & Stamp>
   lastSeq: number
 }
@@ -47,6 +50,7 @@ export function emptyFeed(): Feed {
     responses: [],
     scores: [],
     observations: [],
+    teamMessages: [],
     held: [],
     lastSeq: 0,
   }
@@ -107,6 +111,9 @@ export function foldEvents(events: readonly LiveEvent[]): Feed {
         break
       case 'observation.recorded':
         feed.observations.push({ ...e.data, ...stamp })
+        break
+      case 'team.message':
+        feed.teamMessages.push({ ...e.data, ...stamp })
         break
     }
   }

@@ -157,6 +157,19 @@ export type Rating = 'P' | 'S' | 'M' | 'U'
 
 export interface ScoreData { id: string; criterionKey: string; taskKey: string; rating: Rating; note: string; by: PersonRef }
 
+/**
+ * A message from a team to control (the simulation cell that plays outside agencies, the press, the public), or to
+ * another team through control (`to` names it; control passes it on or answers). Its team and control read it.
+ */
+export interface TeamMessageData {
+  id: string
+  from: string
+  /** `control`, or the key of the team it is meant for (through control). */
+  to: string
+  body: string
+  by: PersonRef
+}
+
 export interface ObservationData { id: string; text: string; injectKey: string | null; teamKey: string | null; by: PersonRef }
 
 /** Payload by event type. */
@@ -170,6 +183,7 @@ export interface EventDataMap {
   'response.submitted': ResponseData
   'score.recorded': ScoreData
   'observation.recorded': ObservationData
+  'team.message': TeamMessageData
 }
 export type LiveEventType = keyof EventDataMap
 

@@ -28,4 +28,5 @@ export const EVENT_TYPE_LABELS: Record<string, string> = {
   'response.submitted': 'Response',
   'score.recorded': 'Rating',
   'observation.recorded': 'Observation',
+  'team.message': 'Message from a team',
 }

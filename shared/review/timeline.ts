@@ -95,6 +95,11 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
       const d = e.data
       return { ...none, summary: `Rating ${d.rating}: ${d.criterionKey} / ${d.taskKey}`, detail: d.note }
     }
+    case 'team.message': {
+      const d = e.data
+      const to = d.to === 'control' ? 'control' : `${teamName(d.to)} (through control)`
+      return { ...none, teams: teamName(d.from), summary: `Message from ${teamName(d.from)} to ${to}`, detail: d.body }
+    }
     case 'observation.recorded': {
       const d = e.data
       return { ...none, teams: d.teamKey ? teamName(d.teamKey) : '', injectKey: d.injectKey ?? '', summary: 'Observation', detail: d.text }

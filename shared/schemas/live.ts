@@ -66,6 +66,13 @@ export const scoreSchema = z.object({
   idempotencyKey: idempotencyKeySchema,
 })
 
+/** A team's message to control, or to another team through control. */
+export const teamMessageSchema = z.object({
+  to: z.union([z.literal('control'), keySchema]).default('control'),
+  body: z.string().trim().min(1, 'Write the message.').max(4000),
+  idempotencyKey: idempotencyKeySchema,
+})
+
 export const observationSchema = z.object({
   text: z.string().trim().min(1, 'Write the observation.').max(10_000),
   injectKey: keySchema.nullish(),

@@ -124,7 +124,8 @@ const MATRIX: { routes: RouteRow[]; rooms: RoomRow[] } = {
     {
       route: 'POST exercises/[id]/messages.post.ts',
       call: c => ({ path: `${X(c)}/messages`, body: INVALID }),
-      expect: inExercise(['facilitator'], 400),
+      // The facilitator to teams, a player from their team to control.
+      expect: inExercise(['facilitator', 'science', 'civil', 'comms'], 400),
     },
     {
       route: 'POST exercises/[id]/observations.post.ts',
