@@ -19,7 +19,7 @@ interface Job {
   resolve: (out: unknown) => void
   reject: (err: Error) => void
 }
-interface Slot { worker: Worker; job: Job | null; timer: NodeJS.Timeout | null }
+interface Slot { worker: Worker; job: Job | null; timer: NodeJS.Timeout | null; startedAt: number }
 
 let nextId = 1
 let slots: Slot[] = []
@@ -37,7 +37,7 @@ async function spawn(): Promise<Slot> {
   const worker = new Worker(new URL(workerUrl()), { workerData: { fonts } })
   // Idle workers do not keep the process alive; a busy one is waited for through its job's promise.
   worker.unref()
-  const slot: Slot = { worker, job: null, timer: null }
+  const slot: Slot = { worker, job: null, timer: null, startedAt: Date.now() }
   worker.on('message', (msg: { id: number; ok: boolean; output?: unknown; error?: { message: string } }) => {
     const job = slot.job
     if (!job || job.id !== msg.id) return
@@ -59,7 +59,10 @@ function finish(slot: Slot) {
   slot.job = null
 }
 
-/** A worker that died or was stopped fails its job; a fresh one takes its place. */
+/**
+ * A worker that died or was stopped fails its job; a fresh one takes its place (after a second when it died young,
+ * so that a worker that cannot start does not restart in a tight loop).
+ */
 function fail(slot: Slot, err: Error) {
   if (!slots.includes(slot)) return
   slots = slots.filter(s => s !== slot)
@@ -67,7 +70,9 @@ function fail(slot: Slot, err: Error) {
   finish(slot)
   job?.reject(err)
   void slot.worker.terminate()
-  void grow().then(pump)
+  const young = Date.now() - slot.startedAt < 1000
+  if (young) logThrottled('workers:start', '[workers] a worker thread stopped right after it started (repeats are logged once a minute):', err)
+  setTimeout(() => { if (size) void grow().then(pump).catch(() => {}) }, young ? 1000 : 0)
 }
 
 let growing: Promise<void> | null = null
