@@ -1,6 +1,5 @@
 import type { LiveView } from '#shared/live/types'
 import { eq } from 'drizzle-orm'
-import type { H3Event } from 'h3'
 import Papa from 'papaparse'
 import ExcelJS from 'exceljs'
 import { guardCsvCell } from '#shared/review/csv'
@@ -28,14 +27,6 @@ export function exerciseTimeline(exerciseId: string, view: LiveView = { kind: 'c
 
 export function fileStem(title: string): string {
   return title.normalize('NFKD').replace(/[^\w-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'exercise'
-}
-
-export function downloadHeaders(event: H3Event, type: string, filename: string) {
-  setResponseHeaders(event, {
-    'Content-Type': type,
-    'Content-Disposition': `attachment; filename="${filename}"`,
-    'Cache-Control': 'no-store',
-  })
 }
 
 /** CSV with the drill marking and caution on top; every cell guarded against formula injection. */

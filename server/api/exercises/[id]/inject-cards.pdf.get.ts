@@ -1,5 +1,5 @@
 import { getExercise } from '~~/server/library'
-import { downloadHeaders, fileStem, injectCardsPdf } from '~~/server/review'
+import { fileStem, injectCardsPdf } from '~~/server/review'
 
 // Printable inject cards, one page per inject of the frozen scenario (no expected actions).
 export default defineEventHandler(async (event) => {

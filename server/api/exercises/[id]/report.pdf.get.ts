@@ -1,4 +1,4 @@
-import { downloadHeaders, fileStem, reportPdf } from '~~/server/review'
+import { fileStem, reportPdf } from '~~/server/review'
 
 // The after-action report as PDF (analyst and facilitator; admins look in).
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { DRILL_CAUTION, DRILL_MARKING } from '#shared/utils/drill'
-import { downloadHeaders, exerciseTimeline, fileStem } from '~~/server/review'
+import { exerciseTimeline, fileStem } from '~~/server/review'
 
 // The record itself (every event with its full payload) plus the readable rows.
 export default defineEventHandler(async (event) => {

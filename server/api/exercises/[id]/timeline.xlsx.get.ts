@@ -1,4 +1,4 @@
-import { downloadHeaders, exerciseTimeline, fileStem, timelineXlsx } from '~~/server/review'
+import { exerciseTimeline, fileStem, timelineXlsx } from '~~/server/review'
 
 export default defineEventHandler(async (event) => {
   const { params: { id } } = await requireExerciseAccess(event, 'review.export')

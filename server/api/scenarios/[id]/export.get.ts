@@ -7,10 +7,6 @@ export default defineEventHandler(async (event) => {
   await requireAuthor(event)
   const { id } = paramsValid(event, idParamSchema)
   const row = getScenarioRow(id)
-  setResponseHeaders(event, {
-    'Content-Type': 'application/yaml; charset=utf-8',
-    'Content-Disposition': `attachment; filename="${row.key}.yaml"`,
-    'Cache-Control': 'no-store',
-  })
+  downloadHeaders(event, 'application/yaml; charset=utf-8', `${row.key}.yaml`)
   return stringifyScenario(row.document)
 })

@@ -6,10 +6,6 @@ export default defineEventHandler(async (event) => {
   await requireAuthor(event)
   const { id } = paramsValid(event, idParamSchema)
   const row = getScenarioRow(id)
-  setResponseHeaders(event, {
-    'Content-Type': 'text/csv; charset=utf-8',
-    'Content-Disposition': `attachment; filename="${row.key}-injects.csv"`,
-    'Cache-Control': 'no-store',
-  })
+  downloadHeaders(event, 'text/csv; charset=utf-8', `${row.key}-injects.csv`)
   return mselCsv(row)
 })

@@ -6,10 +6,6 @@ export default defineEventHandler(async (event) => {
   await requireAuthor(event)
   const { id } = paramsValid(event, idParamSchema)
   const row = getScenarioRow(id)
-  setResponseHeaders(event, {
-    'Content-Type': 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
-    'Content-Disposition': `attachment; filename="${row.key}-injects.xlsx"`,
-    'Cache-Control': 'no-store',
-  })
+  downloadHeaders(event, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', `${row.key}-injects.xlsx`)
   return await mselXlsx(row)
 })
