@@ -34,6 +34,8 @@ export const scenarioClockText = (t: number | string) => inZone(t).format('HH:mm
 export const scenarioUtcClockText = (t: number | string) => dayjs.utc(ms(t)).format('HH:mm:ss')
 /** The scenario's offset from UTC at a moment: `UTC+1`; `UTC` in a UTC scenario. */
 export const scenarioOffset = (t: number | string) => (scenarioZone() === 'UTC' ? 'UTC' : offsetText(ms(t), scenarioZone()))
+/** `4 Mar 10:00`: scenario local time alone, for narrow columns (give the full scenarioStamp as a title beside it). */
+export const scenarioShort = (t: number | string) => inZone(t).format('D MMM HH:mm')
 /** `4 Mar 10:00 (UTC+1) · 09:00 UTC` (`4 Mar 09:00 UTC` in a UTC scenario), with the year when asked. */
 export const scenarioStamp = (t: number | string, withYear = false) => zonedText(ms(t), scenarioZone(), { year: withYear })
 /** Local wall time `14:32` (the room's own clock). */
