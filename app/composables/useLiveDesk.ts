@@ -61,6 +61,7 @@ export function useLiveDesk(exerciseId: string, opts: DeskOptions = {}) {
       responses: injects.flatMap(i => i.responses),
       scores: staff.scores ?? [], observations: staff.observations ?? [], held: staff.held ?? [],
       teamMessages: (d as Partial<Pick<Feed, 'teamMessages'>>).teamMessages ?? [],
+      zones: (d as Partial<Pick<Feed, 'zones'>>).zones ?? [],
     }
   })
   // The store appends in place: a fresh array lets child components see that it changed.

@@ -1,6 +1,9 @@
 import { randomUUID } from 'node:crypto'
-import { and, eq } from 'drizzle-orm'
+import { and, eq, inArray } from 'drizzle-orm'
 import type { Membership, User } from '#shared/types/db'
+import { zoneFigures, type ZoneKind, type ZoneShape } from '#shared/geo/zones'
+import type { ZoneDrawnData, ZoneWithdrawnData } from '#shared/live/types'
+import { assessmentAt, publishedSolutions } from './assessments'
 import { injectDef, injectRows } from './injects'
 import { findIdempotent, liveWrite } from './record'
 
@@ -120,5 +123,55 @@ export function sendTeamMessage(
       data: { id: randomUUID(), from, to: input.to, body: input.body, by: by(user) },
     })
     return { event, created: true }
+  })
+}
+
+/** Who draws a zone: a player for their team, or control (`control`). */
+export interface ZoneAuthor { user: User; teamKey: string }
+
+/**
+ * A protective-action zone drawn on the hazard map (`zone.drawn`, audience all: every team, the staff and the wall
+ * see it). Its figures — the sites and people inside, and per threshold the chance that the damage reaches beyond it
+ * — are worked out here against the solution current when it is drawn, and kept with it for the after-action record.
+ */
+export function drawZone(
+  exerciseId: string,
+  author: ZoneAuthor,
+  input: { kind: ZoneKind; name: string; note: string; shape: ZoneShape; idempotencyKey: string },
+) {
+  return liveWrite(exerciseId, (w) => {
+    const again = findIdempotent(w.tx, exerciseId, author.user.id, input.idempotencyKey, 'zone.drawn')
+    if (again) return { event: again, created: false }
+    if (w.exercise.status === 'ended') throw exerciseEnded()
+    const current = publishedSolutions(w.tx, exerciseId).at(-1)
+    const figures = current
+      ? zoneFigures(input.shape, current.key, assessmentAt(w.tx, exerciseId, current.seq), w.exercise.scenario.sites)
+      : null
+    const event = w.append({
+      type: 'zone.drawn', audience: 'all', actorId: author.user.id, idempotencyKey: input.idempotencyKey,
+      data: {
+        id: randomUUID(), teamKey: author.teamKey, kind: input.kind, name: input.name, note: input.note, shape: input.shape,
+        figures, by: by(author.user),
+      },
+    })
+    return { event, created: true }
+  })
+}
+
+/** Takes a zone back: its own team or control may; once only (again → 409). */
+export function withdrawZone(exerciseId: string, author: ZoneAuthor, zoneId: string) {
+  return liveWrite(exerciseId, (w) => {
+    if (w.exercise.status === 'ended') throw exerciseEnded()
+    const zones = w.tx.select({ payload: schema.exerciseEvents.payload, type: schema.exerciseEvents.type }).from(schema.exerciseEvents)
+      .where(and(eq(schema.exerciseEvents.exerciseId, exerciseId), inArray(schema.exerciseEvents.type, ['zone.drawn', 'zone.withdrawn']))).all()
+    const drawn = zones.find(z => z.type === 'zone.drawn' && (z.payload as ZoneDrawnData).id === zoneId)?.payload as ZoneDrawnData | undefined
+    if (!drawn) throw notFound('No such zone.')
+    if (author.teamKey !== 'control' && drawn.teamKey !== author.teamKey) throw forbidden('Only the team that drew this zone, or control, may withdraw it.')
+    if (zones.some(z => z.type === 'zone.withdrawn' && (z.payload as ZoneWithdrawnData).id === zoneId)) throw conflict('This zone was already withdrawn.')
+    const event = w.append({
+      type: 'zone.withdrawn', audience: 'all', actorId: author.user.id,
+      data: { id: zoneId, teamKey: drawn.teamKey, name: drawn.name, by: by(author.user) },
+    })
+    return { event }
   })
 }

@@ -63,7 +63,7 @@ function toStored(row: typeof schema.exerciseEvents.$inferSelect): StoredEvent {
 
 /** Events that carry text people write; their size counts against the record's cap (NUXT_RECORD_LIMIT_MB). */
 export const WRITTEN_TEXT_EVENTS: ReadonlySet<LiveEventType> = new Set([
-  'response.submitted', 'observation.recorded', 'score.recorded', 'message.sent', 'team.message',
+  'response.submitted', 'observation.recorded', 'score.recorded', 'message.sent', 'team.message', 'zone.drawn',
 ])
 
 /** Counts a written event's bytes against the exercise's record; 413 (record-full) past the cap, nothing stored. */

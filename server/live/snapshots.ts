@@ -74,6 +74,8 @@ export function liveSnapshot(exerciseId: string, view: LiveView) {
     injects: recent.injects,
     // The messages the teams wrote (a player's snapshot has its own team's only: the record's audience).
     teamMessages: feed.teamMessages.slice(-200),
+    // Protective-action zones (every reader sees them), withdrawn ones marked.
+    zones: feed.zones,
   }
   // One union, discriminated by `desk`: the team room's share, the evaluator desk's, the control desk's.
   if (view.kind === 'player') return { ...base, desk: 'room' as const }

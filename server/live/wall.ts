@@ -69,6 +69,7 @@ export function wallSnapshot(exerciseId: string) {
     // The places of the scenario, named on the wall's map (no figures of theirs: the wall has no assessment).
     sites: exercise.scenario.sites,
     impactTime: latestImpactTime(events),
+    zones: feed.zones.filter(z => !z.withdrawn),
     injects: feed.injects.slice(-WALL_INJECTS).reverse().map(({
       key,
       title,

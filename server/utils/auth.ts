@@ -136,3 +136,14 @@ export async function startFreshSession(event: H3Event, user: User): Promise<voi
   }
   await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now(), generation: user.sessionGeneration })
 }
+
+/**
+ * Who draws or withdraws a protective-action zone: the facilitator as `control`, a player for their team. An admin
+ * looking in writes nothing (no such exercise for them, as on every write route); other roles may not (403).
+ */
+export function zoneAuthor(access: Pick<ExerciseAccess, 'user' | 'standing' | 'membership'>): { user: User; teamKey: string } {
+  if (hasCapability(access.standing, 'live.control')) return { user: access.user, teamKey: 'control' }
+  if (access.standing === 'admin-visitor' || !access.membership) throw notFound('No such exercise.')
+  if (!hasCapability(access.standing, 'live.respond') || !access.membership.teamKey) throw forbidden('Your role in this exercise does not allow this.')
+  return { user: access.user, teamKey: access.membership.teamKey }
+}

@@ -131,4 +131,9 @@ export interface Assessment {
   warnings: ModelWarning[]
   /** A thinned, reproducible subset of sampled impact points for maps: [lon, lat, flags] (flags bit0 = sea, bit1 = airburst). */
   impactPoints: Array<[number, number, number]>
+  /** Reach radii of the thinned realisations (index-aligned with impactPoints); absent from earlier hazard models. */
+  reach?: DamageReach
 }
+
+/** Per thinned realisation (index-aligned with Assessment.impactPoints): ground radius, km, within which each threshold is exceeded (0: nowhere). */
+export interface DamageReach { keys: ThresholdKey[]; radiiKm: number[][] }

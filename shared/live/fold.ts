@@ -3,7 +3,7 @@
  * with their current body and revision history, responses, solutions, scores and observations.
  * The server builds its snapshots with it and the client store derives the same from its feed.
  */
-import type { ClockDto, Headline, InjectData, InjectHeldData, LiveEvent, ObservationData, ResponseData, ScoreData, SolutionPublishedData, TeamMessageData, WallSolutionData } from './types'
+import type { ClockDto, Headline, InjectData, InjectHeldData, LiveEvent, ObservationData, ResponseData, ScoreData, SolutionPublishedData, TeamMessageData, WallSolutionData, ZoneDrawnData } from './types'
 
 interface Stamp { seq: number; scenarioTime: string; wallTime: string }
 
@@ -12,6 +12,8 @@ export type FeedResponse = ResponseData & Stamp
 export type FeedScore = ScoreData & Stamp
 export type FeedObservation = ObservationData & Stamp
 export type FeedTeamMessage = TeamMessageData & Stamp
+/** A zone as drawn, with when it was withdrawn (if it was). */
+export type FeedZone = ZoneDrawnData & Stamp & { withdrawn: (Stamp & { by: string }) | null }
 
 export interface FeedInject extends InjectData {
   releasedSeq: number
@@ -37,6 +39,8 @@ export interface Feed {
   observations: FeedObservation[]
   /** Messages from teams (to control, or to another team through control), oldest first. */
   teamMessages: FeedTeamMessage[]
+  /** Protective-action zones, oldest first, withdrawn ones included (marked). */
+  zones: FeedZone[]
   held: Array<InjectHeldData & Stamp>
   lastSeq: number
 }
@@ -51,6 +55,7 @@ export function emptyFeed(): Feed {
     scores: [],
     observations: [],
     teamMessages: [],
+    zones: [],
     held: [],
     lastSeq: 0,
   }
@@ -115,6 +120,14 @@ export function foldEvents(events: readonly LiveEvent[]): Feed {
       case 'team.message':
         feed.teamMessages.push({ ...e.data, ...stamp })
         break
+      case 'zone.drawn':
+        feed.zones.push({ ...e.data, ...stamp, withdrawn: null })
+        break
+      case 'zone.withdrawn': {
+        const z = feed.zones.find(x => x.id === e.data.id)
+        if (z && !z.withdrawn) z.withdrawn = { ...stamp, by: e.data.by.name }
+        break
+      }
     }
   }
   return feed

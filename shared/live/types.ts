@@ -2,6 +2,7 @@
 import type { Assessment, Percentiles } from '../hazard/types'
 import type { OrbitSolution } from '../hazard/schema'
 import type { Decision, Inject } from '../scenario/schema'
+import type { ZoneFigures, ZoneKind, ZoneShape } from '../geo/zones'
 
 export type ExerciseStatus = 'planned' | 'running' | 'paused' | 'ended'
 
@@ -170,6 +171,25 @@ export interface TeamMessageData {
   by: PersonRef
 }
 
+/**
+ * A protective-action zone a team (or control) drew on its hazard map: evacuate, shelter or keep out. `figures` are
+ * worked out on the server when it is drawn, against the solution current then (null before any solution).
+ */
+export interface ZoneDrawnData {
+  id: string
+  /** The team that drew it, or `control`. */
+  teamKey: string
+  kind: ZoneKind
+  name: string
+  note: string
+  shape: ZoneShape
+  figures: ZoneFigures | null
+  by: PersonRef
+}
+
+/** A zone taken back by its team or by control. */
+export interface ZoneWithdrawnData { id: string; teamKey: string; name: string; by: PersonRef }
+
 export interface ObservationData { id: string; text: string; injectKey: string | null; teamKey: string | null; by: PersonRef }
 
 /** Payload by event type. */
@@ -184,6 +204,8 @@ export interface EventDataMap {
   'score.recorded': ScoreData
   'observation.recorded': ObservationData
   'team.message': TeamMessageData
+  'zone.drawn': ZoneDrawnData
+  'zone.withdrawn': ZoneWithdrawnData
 }
 export type LiveEventType = keyof EventDataMap
 

@@ -38,6 +38,8 @@ const WALL_TYPES: ReadonlySet<LiveEventType> = new Set([
   'inject.released',
   'message.sent',
   'inject.revised',
+  'zone.drawn',
+  'zone.withdrawn',
 ])
 
 /** Whether a reader with this view may receive an event with this audience (and type, for the wall). */
@@ -84,6 +86,9 @@ export function sanitise(event: StoredEvent, view: LiveView): LiveEvent | null {
     data = view.kind === 'wall' ? forWall(event.data) : forPlayer(event.data)
   }
   if (view.kind === 'wall' && event.type === 'solution.published') data = wallSolution(event.data)
+  // The wall shows a zone's outline, kind and name; its note and who drew it stay with the desks.
+  if (view.kind === 'wall' && event.type === 'zone.drawn') data = { ...event.data, note: '', by: { id: '', name: '' } }
+  if (view.kind === 'wall' && event.type === 'zone.withdrawn') data = { ...event.data, by: { id: '', name: '' } }
   return {
     seq: event.seq, type: event.type, data,
     wallTime: new Date(event.wallTime).toISOString(),

@@ -29,4 +29,6 @@ export const EVENT_TYPE_LABELS: Record<string, string> = {
   'score.recorded': 'Rating',
   'observation.recorded': 'Observation',
   'team.message': 'Message from a team',
+  'zone.drawn': 'Zone drawn',
+  'zone.withdrawn': 'Zone withdrawn',
 }

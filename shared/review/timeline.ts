@@ -2,6 +2,10 @@
 import type { StoredEvent } from '../live/types'
 import type { Scenario } from '../scenario/schema'
 import { localIsoText } from '../utils/zone'
+import { zoneFiguresText, zoneKindLabel, zoneShapeText } from '../geo/zones'
+import { THRESHOLDS, type ThresholdKey } from '../hazard/types'
+
+const thresholdLabel = (k: ThresholdKey) => THRESHOLDS.find(t => t.key === k)?.label ?? k
 
 export interface TimelineRow {
   seq: number
@@ -99,6 +103,19 @@ function describe(e: StoredEvent, scenario: Scenario | null): Pick<TimelineRow, 
       const d = e.data
       const to = d.to === 'control' ? 'control' : `${teamName(d.to)} (through control)`
       return { ...none, teams: teamName(d.from), summary: `Message from ${teamName(d.from)} to ${to}`, detail: d.body }
+    }
+    case 'zone.drawn': {
+      const d = e.data
+      const who = d.teamKey === 'control' ? 'control' : teamName(d.teamKey)
+      return {
+        ...none, teams: d.teamKey === 'control' ? '' : teamName(d.teamKey),
+        summary: `Zone drawn by ${who}: ${zoneKindLabel(d.kind)} — ${d.name}`,
+        detail: [zoneShapeText(d.shape), d.figures ? zoneFiguresText(d.figures, thresholdLabel) : '', d.note].filter(Boolean).join('. '),
+      }
+    }
+    case 'zone.withdrawn': {
+      const d = e.data
+      return { ...none, teams: d.teamKey === 'control' ? '' : teamName(d.teamKey), summary: `Zone withdrawn: ${d.name}` }
     }
     case 'observation.recorded': {
       const d = e.data

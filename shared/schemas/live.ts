@@ -3,6 +3,7 @@ import { z } from 'zod'
 import { keySchema } from '../scenario/schema'
 import { scenarioTimeSchema } from '../scenario/time'
 import { MAX_FACTOR, MIN_FACTOR } from '../live/clock'
+import { MAX_ZONE_CORNERS, MAX_ZONE_RADIUS_KM, polygonProblem } from '../geo/zones'
 
 const uuid = z.string().uuid('Not a valid id.')
 
@@ -102,3 +103,30 @@ export const liveAuthSchema = z.object({
   wallToken: z.string().max(100).optional(),
   lastSeq: z.coerce.number().int().min(0).default(0),
 })
+
+const zoneCornerSchema = z.tuple([z.number().min(-180).max(180), z.number().min(-85).max(85)])
+
+/** A protective-action zone drawn on the hazard map: a circle or a polygon, its kind, name and a note. */
+export const zoneSchema = z.object({
+  kind: z.enum(['evacuate', 'shelter', 'exclusion']),
+  name: z.string().trim().min(1, 'Name the zone.').max(80),
+  note: z.string().trim().max(2000).default(''),
+  shape: z.discriminatedUnion('type', [
+    z.object({
+      type: z.literal('circle'),
+      centre: zoneCornerSchema,
+      radiusKm: z.number().min(0.1, 'at least 0.1 km').max(MAX_ZONE_RADIUS_KM, `at most ${MAX_ZONE_RADIUS_KM} km`),
+    }),
+    z.object({
+      type: z.literal('polygon'),
+      ring: z.array(zoneCornerSchema).min(3, 'A zone needs at least three corners.').max(MAX_ZONE_CORNERS, `at most ${MAX_ZONE_CORNERS} corners`),
+    }).superRefine((v, ctx) => {
+      const problem = polygonProblem(v.ring)
+      if (problem) ctx.addIssue({ code: 'custom', path: ['ring'], message: problem })
+    }),
+  ]),
+  idempotencyKey: idempotencyKeySchema,
+})
+export type ZoneInput = z.infer<typeof zoneSchema>
+
+export const zoneParamsSchema = z.object({ id: uuid, zoneId: uuid })
