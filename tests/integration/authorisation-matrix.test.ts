@@ -128,6 +128,17 @@ const MATRIX: { routes: RouteRow[]; rooms: RoomRow[] } = {
       expect: inExercise(['facilitator', 'science', 'civil', 'comms'], 400),
     },
     {
+      route: 'POST exercises/[id]/zones/index.post.ts',
+      call: c => ({ path: `${X(c)}/zones`, body: INVALID }),
+      // A player for their team, the facilitator for the agencies control plays.
+      expect: inExercise(['facilitator', 'science', 'civil', 'comms'], 400),
+    },
+    {
+      route: 'DELETE exercises/[id]/zones/[zoneId].delete.ts',
+      call: c => ({ path: `${X(c)}/zones/${c.missing}` }),
+      expect: inExercise(['facilitator', 'science', 'civil', 'comms'], { status: 404, message: /No such zone/ }),
+    },
+    {
       route: 'POST exercises/[id]/observations.post.ts',
       call: c => ({ path: `${X(c)}/observations`, body: INVALID }),
       expect: inExercise(['evaluator', 'facilitator'], 400),
