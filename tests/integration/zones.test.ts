@@ -2,8 +2,12 @@
 // the evaluators and the wall see it live; its figures (the sites and people inside, and per threshold the chance
 // that the damage reaches beyond it) are worked out on the server against the current solution and kept in the
 // record; its team or control withdraws it; the timeline and exports carry both.
+import { execFileSync } from 'node:child_process'
+import { mkdtempSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { Client } from '../support/client'
+import { baseUrl, Client } from '../support/client'
 import { closeSockets, ikey, liveSocket, newLiveExercise, ready, until, type LiveCast } from '../support/live'
 import type { Scenario } from '../../shared/scenario/schema'
 
@@ -129,6 +133,26 @@ describe('protective-action zones', () => {
     expect(csv).toMatch(/chance the damage reaches beyond the zone/)
     expect(csv).toContain('Zone withdrawn: Schools shelter')
   })
+
+  it('are listed in the after-action report (data, page and PDF) with their figures when drawn and at the end', async () => {
+    const report = (await cast.facilitator.client.get(url('/report'))).json
+    const seafront = report.zones.find((z: { name: string }) => z.name === 'Ponta Ferrada seafront')
+    expect(seafront).toMatchObject({ kind: 'Evacuate', team: 'Coastal Protection Directorate', withdrawnAt: null, note: 'Buses from the school at 06:00.' })
+    expect(seafront.whenDrawn).toMatch(/^\d+ sites? inside \([\d,]+ people\)\. If it strikes/)
+    const first = report.zones.find((z: { name: string }) => z.name === 'Harbour approaches')
+    expect(first.whenDrawn).toMatch(/before any orbit solution/)
+    expect(first.atEnd).toMatch(/inside|No site/)
+    expect(report.zones.find((z: { name: string }) => z.name === 'Schools shelter').withdrawnAt).not.toBeNull()
+
+    const pdf = await fetch(`${baseUrl()}${url('/report.pdf')}`, { headers: { cookie: cast.facilitator.client.cookieHeader ?? '' } })
+    expect(pdf.status).toBe(200)
+    const dir = mkdtempSync(join(tmpdir(), 'bw-zones-'))
+    writeFileSync(join(dir, 'r.pdf'), Buffer.from(await pdf.arrayBuffer()))
+    const text = execFileSync('/usr/bin/pdftotext', ['-enc', 'UTF-8', join(dir, 'r.pdf'), '-'], { encoding: 'utf8' }).replace(/\u200b/g, '')
+    expect(text).toContain('Protective-action zones')
+    expect(text).toContain('Ponta Ferrada seafront')
+    expect(text).toContain('Maritime exclusion')
+  }, 60_000)
 
   it('are closed once the drill has ended', async () => {
     expect((await cast.facilitator.client.post(url('/clock'), { action: 'start' })).status).toBeLessThan(300)

@@ -1,5 +1,8 @@
 import { threatSummary, type ThreatSummary } from '#shared/geo'
-import type { SolutionPublishedData, StoredEvent } from '#shared/live/types'
+import { zoneFigures, zoneFiguresText, zoneKindLabel, zoneShapeText } from '#shared/geo/zones'
+import { THRESHOLDS, type ThresholdKey } from '#shared/hazard/types'
+import { foldEvents } from '#shared/live/fold'
+import type { LiveEvent, SolutionPublishedData, StoredEvent } from '#shared/live/types'
 import { decisionSummary } from '#shared/review/decisions'
 import { scoringSummary } from '#shared/review/scoring'
 import { timelineRows } from '#shared/review/timeline'
@@ -16,7 +19,26 @@ import { finalMapSvg, type MapSource } from './map'
  * Events the condensed timeline keeps: the clock, publications, releases, messages and holds (responses, scores and
  * observations have their own sections).
  */
-const CONDENSED = new Set(['clock.changed', 'solution.published', 'inject.released', 'message.sent', 'inject.held'])
+const CONDENSED = new Set(['clock.changed', 'solution.published', 'inject.released', 'message.sent', 'inject.held', 'zone.drawn', 'zone.withdrawn'])
+
+/**
+ * The protective-action zones of the drill in the order drawn: who drew them and when, their shape and note, their
+ * figures when drawn and against the last published solution, and when they were withdrawn.
+ */
+function zonesOf(events: readonly StoredEvent[], scenario: Scenario, last: SolutionPublishedData | null) {
+  const iso = (ms: number) => new Date(ms).toISOString()
+  const feed = foldEvents(events.map(e => ({ ...e, wallTime: iso(e.wallTime), scenarioTime: iso(e.scenarioTime) })) as LiveEvent[])
+  const team = (k: string) => (k === 'control' ? 'Control' : scenario.teams.find(t => t.key === k)?.name ?? k)
+  const label = (k: ThresholdKey) => THRESHOLDS.find(t => t.key === k)?.label ?? k
+  return feed.zones.map(z => ({
+    id: z.id, name: z.name, kind: zoneKindLabel(z.kind), team: team(z.teamKey), by: z.by.name, drawnAt: z.scenarioTime,
+    withdrawnAt: z.withdrawn?.scenarioTime ?? null, shape: zoneShapeText(z.shape), note: z.note,
+    whenDrawn: z.figures ? zoneFiguresText(z.figures, label) : 'Drawn before any orbit solution was published.',
+    atEnd: last && (!z.figures || z.figures.solutionKey !== last.key)
+      ? zoneFiguresText(zoneFigures(z.shape, last.key, last.assessment, scenario.sites), label)
+      : null,
+  }))
+}
 
 function threat(events: readonly StoredEvent[]) {
   return events.filter(e => e.type === 'solution.published').map((e) => {
@@ -80,6 +102,7 @@ export function reportParts(exerciseId: string) {
       .map(r => ({ seq: r.seq, wallTime: r.wallTime, scenarioTime: r.scenarioTime, summary: r.summary, teams: r.teams })),
     eventCount: events.length,
     decisions: decisionSummary(events, scenario, scenarioNow),
+    zones: zonesOf(events, scenario, published.at(-1) ?? null),
     scoring: scoringSummary(events, scenario),
     findings: listFindings(exerciseId),
     improvements: listImprovements(exerciseId),

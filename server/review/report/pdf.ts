@@ -181,6 +181,23 @@ function decisions(d: R): Content[] {
   ]
 }
 
+/** The protective-action zones the teams and control drew, with their figures when drawn and at the end. */
+function zones(d: R): Content[] {
+  const out: Content[] = [{ text: 'Protective-action zones', style: 'h2' }]
+  if (!d.zones.length) return [...out, { text: 'No zone was drawn during this drill.', style: 'para' }]
+  out.push({ text: 'Zones drawn on the hazard map. Chances are conditional on impact: the share of sampled impacts whose damage reaches beyond the zone.', style: 'muted', margin: [0, 0, 0, 4] })
+  out.push(pdfTable(['Zone', 'Drawn (scenario)', 'Figures'], d.zones.map(z => [
+    { stack: [{ text: pt(`${z.kind}: ${z.name}`), bold: true, fontSize: 8 }, { text: pt(`${z.team} · ${z.by}`), fontSize: 7, color: PDF_INK.muted }, { text: pt(z.shape), fontSize: 7, color: PDF_INK.muted }] },
+    { stack: [pdfTime(z.drawnAt), ...(z.withdrawnAt ? [{ text: `withdrawn ${pdfTime(z.withdrawnAt)}`, color: PDF_INK.U }] : [])] },
+    { stack: [
+      ...(z.note ? [{ text: pt(z.note), fontSize: 7.5, italics: true }] : []),
+      { text: pt(`When drawn: ${z.whenDrawn}`), fontSize: 7.5 },
+      ...(z.atEnd ? [{ text: pt(`Against the last solution: ${z.atEnd}`), fontSize: 7.5 }] : []),
+    ] },
+  ]), [120, 70, '*'], { fontSize: 7.5 }))
+  return out
+}
+
 function scores(d: R): Content[] {
   const s = d.scoring
   const out: Content[] = [
@@ -280,7 +297,7 @@ export function reportDocument(d: ReportData): TDocumentDefinitions {
   setPdfZone(d.scenario.clock.timeZone)
   const content: Content[] = [
     ...cover(d), ...overview(d), ...objectives(d), ...scenarioSummary(d), ...threatSection(d), ...timeline(d),
-    ...decisions(d), ...scores(d), ...observations(d), ...hotwashAndFeedback(d), ...findings(d), ...plan(d),
+    ...decisions(d), ...zones(d), ...scores(d), ...observations(d), ...hotwashAndFeedback(d), ...findings(d), ...plan(d),
   ]
   return pdfDocument(`After-action report: ${d.exercise.title}`, pdfSafe(`After-action report — ${d.exercise.title}`), content, { pageBreakBefore: keepHeadingsWithText })
 }
