@@ -52,7 +52,9 @@ test('civil protection draws a zone on its map; control and the wall see it live
 
   // A polygon too: four clicks around the middle of the map.
   await panel.getByTestId('zone-draw-polygon').click()
-  for (const [fx, fy] of [[0.6, 0.3], [0.75, 0.3], [0.75, 0.45], [0.6, 0.45]] as const) await civ.page.mouse.click(box.x + box.width * fx, box.y + box.height * fy)
+  for (const [fx, fy] of [[0.6, 0.3], [0.75, 0.3], [0.75, 0.45], [0.6, 0.45]] as const) {
+    await civ.page.mouse.click(box.x + box.width * fx, box.y + box.height * fy)
+  }
   await expect(panel.getByTestId('zone-hint')).toContainText('4 corners')
   await panel.getByTestId('zone-kind-shelter').check()
   await panel.getByTestId('zone-name').fill('Inland shelter')
