@@ -135,5 +135,8 @@ export interface Assessment {
   reach?: DamageReach
 }
 
-/** Per thinned realisation (index-aligned with Assessment.impactPoints): ground radius, km, within which each threshold is exceeded (0: nowhere). */
+/**
+ * Per thinned realisation (index-aligned with Assessment.impactPoints): ground radius, km, within which each threshold
+ * is exceeded (0: nowhere).
+ */
 export interface DamageReach { keys: ThresholdKey[]; radiiKm: number[][] }
