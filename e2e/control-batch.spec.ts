@@ -26,6 +26,10 @@ test('control releases several injects at once, early, without being asked each 
     await expect(page.locator(`[data-testid="schedule-row"][data-inject="${i.key}"]`)).not.toHaveAttribute('data-state', /upcoming|due/, { timeout: 10_000 })
   }
   await expect(page.getByTestId('release-selected')).toContainText('(0)')
+  // Released before their planned time: each row says how early (the lag against the plan is shown either way).
+  for (const i of plain) {
+    await expect(page.locator(`[data-testid="schedule-row"][data-inject="${i.key}"]`).getByTestId('release-lag')).toContainText('early')
+  }
   await shot(page, 'control-batch-released')
 
   // The hazard brief is in its own tab; the desk page stays short.

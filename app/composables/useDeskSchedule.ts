@@ -14,6 +14,8 @@ export interface ScheduleRow {
   deadline: string | null
   state: InjectState
   answered: Record<string, boolean>
+  /** When it went out (scenario time, ISO), once released: against `at`, how late or early it went. */
+  releasedAt?: string | null
 }
 
 const RELEASED: ReadonlySet<InjectState> = new Set(['released', 'answered', 'overdue'])
@@ -33,6 +35,7 @@ export function useDeskSchedule(
     const f = toValue(feed)
     const t = toValue(scenarioNow) ?? 0
     const released = new Set(f.injects.map(i => i.key))
+    const releasedAt = new Map(f.injects.map(i => [i.key, i.releasedAt] as [string, string]))
     const held = new Set(f.held.map(h => h.key))
     return toValue(schedule).map((r) => {
       const isReleased = released.has(r.key) || RELEASED.has(r.state)
@@ -47,7 +50,10 @@ export function useDeskSchedule(
         answered,
         t,
       )
-      return { ...r, state, answered: Object.fromEntries(r.teams.map(k => [k, answered.has(k)])) }
+      return {
+        ...r, state, answered: Object.fromEntries(r.teams.map(k => [k, answered.has(k)])),
+        releasedAt: releasedAt.get(r.key) ?? r.releasedAt ?? null,
+      }
     })
   })
   const next = computed(() => {

@@ -12,6 +12,7 @@ function schedule(exercise: LiveExercise, feed: Feed, t: number) {
   const rows = injectRows(useDB(), exercise.id)
   const answered = new Map<string, Set<string>>()
   for (const r of feed.responses) answered.set(r.injectKey, (answered.get(r.injectKey) ?? new Set()).add(r.teamKey))
+  const releasedAt = new Map(feed.injects.map(i => [i.key, i.releasedAt] as [string, string]))
   const defs: InjectDef[] = [
     // A scenario inject as released (a jump may have moved its deadline), else as scripted.
     ...exercise.scenario.injects.map(i => rows.get(i.key)?.definition ?? i),
@@ -28,6 +29,8 @@ function schedule(exercise: LiveExercise, feed: Feed, t: number) {
       state: injectState({ at: Date.parse(def.at), deadline, teams: def.teams }, row?.status ?? null, teamsAnswered, t),
       answered: Object.fromEntries(def.teams.map(k => [k, teamsAnswered.has(k)])),
       releasedSeq: row?.releasedSeq ?? null, revision: row?.revision ?? 0, solutionKey: row?.solutionKey ?? null,
+      // When it went out: against `at`, how late (the scheduler behind a fast clock) or early (by hand) it was.
+      releasedAt: releasedAt.get(def.key) ?? null,
     }
   }).sort((a, b) => Date.parse(a.at) - Date.parse(b.at))
 }

@@ -22,6 +22,13 @@ export interface DecisionRow {
   deadline: string
   /** Scenario minutes from release to deadline (negative when released after it). */
   allowedMin: number
+  /** Planned scenario time of a scripted inject (ISO); null for an ad-hoc message. */
+  plannedAt: string | null
+  /**
+   * Scenario minutes it went out before (negative) or after (positive) its planned time, when more than a minute:
+   * released early by hand, or late (a fast clock's scheduler, a jump); null otherwise.
+   */
+  releaseLagMin: number | null
   first: {
     seq: number
     scenarioTime: string
@@ -125,6 +132,8 @@ export function decisionSummary(
         injectKey: d.key, title: d.title, phase: d.phase ?? phaseAt(scenario, e.scenarioTime), teamKey,
         releasedSeq: e.seq, releasedAt: new Date(e.scenarioTime).toISOString(), releasedWall: new Date(e.wallTime).toISOString(),
         deadline: new Date(deadline).toISOString(), allowedMin,
+        plannedAt: d.adhoc ? null : d.at,
+        releaseLagMin: !d.adhoc && Math.abs(e.scenarioTime - Date.parse(d.at)) >= MIN ? (e.scenarioTime - Date.parse(d.at)) / MIN : null,
         first: f
           ? {
               seq: f.e.seq,

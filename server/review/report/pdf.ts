@@ -171,7 +171,7 @@ function decisions(d: R): Content[] {
     { text: 'Each decision', style: 'h2' },
     pdfTable(['Team', 'Released', 'Deadline', 'First response', 'Took', 'Of time allowed', 'Status'], d.decisions.rows.flatMap((r): TableCell[][] => [
       [{ text: pt(r.title), bold: true, fontSize: 8, colSpan: 7, margin: [0, 3, 0, 0] }, '', '', '', '', '', ''],
-      [team(r.teamKey), pdfTime(r.releasedAt), pdfTime(r.deadline), r.first ? `${pdfTime(r.first.scenarioTime)} by ${r.first.by}` : '—', durationText(r.responseMin), fmtPct(r.shareOfAllowed),
+      [team(r.teamKey), r.releaseLagMin === null ? pdfTime(r.releasedAt) : { stack: [pdfTime(r.releasedAt), { text: r.releaseLagMin < 0 ? `${durationText(-r.releaseLagMin)} early, by hand` : `${durationText(r.releaseLagMin)} late`, color: PDF_INK.U }] }, pdfTime(r.deadline), r.first ? `${pdfTime(r.first.scenarioTime)} by ${r.first.by}` : '—', durationText(r.responseMin), fmtPct(r.shareOfAllowed),
         { text: STATUS_TEXT[r.status], bold: true, fontSize: 7.5, color: r.status === 'on-time' ? PDF_INK.P : r.status === 'pending' ? PDF_INK.muted : PDF_INK.U }],
       ...(r.first && (r.first.choice || r.first.text) ? [[{ text: pt(`${r.first.choice ?? ''}${r.first.choice && r.first.text ? ' — ' : ''}${r.first.text}`.slice(0, 600)), fontSize: 7.5, color: PDF_INK.muted, colSpan: 7 }, '', '', '', '', '', ''] as TableCell[]] : []),
       ...(r.first && r.first.injectRevision < r.revision

@@ -46,6 +46,28 @@ describe('decision response times', () => {
     expect(row!.revision).toBe(1)
   })
 
+  it('says how early a release by hand went out, and how late a scheduler behind a fast clock released', () => {
+    const events = [
+      // Planned two days in, released by hand at T0: 2 d early, with the whole time to the deadline allowed.
+      ev('inject.released', 0, inject('early', ['science'], 'detection', 3000, { at: new Date(T0 + 2880 * MIN).toISOString() })),
+      ev('response.submitted', 5, response('early', 'science'), 'teams:science', 1),
+      // Planned at T0 + 10 min, went out 33 scenario minutes after that.
+      ev('inject.released', 43, inject('late', ['civil'], 'detection', 600, { at: new Date(T0 + 10 * MIN).toISOString(), manual: false })),
+      // On time within the minute: no lag reported.
+      ev('inject.released', 60.5, inject('punctual', ['civil'], 'detection', 600, { at: new Date(T0 + 60 * MIN).toISOString() })),
+      ev('message.sent', 70, inject('msg', ['civil'], 'detection', 600, { adhoc: true, at: new Date(T0 + 70 * MIN).toISOString() })),
+    ]
+    const rows = decisionSummary(events, scenario, T0 + 100 * MIN).rows
+    const lag = Object.fromEntries(rows.map(r => [r.injectKey, r.releaseLagMin]))
+    expect(lag).toEqual({ early: -2880, late: 33, punctual: null, msg: null })
+    // The response time still runs from the release, in scenario time; the allowed time from release to deadline.
+    const early = rows.find(r => r.injectKey === 'early')!
+    expect(early.responseMin).toBe(5)
+    expect(early.allowedMin).toBe(3000)
+    expect(early.plannedAt).toBe(new Date(T0 + 2880 * MIN).toISOString())
+    expect(rows.find(r => r.injectKey === 'msg')!.plannedAt).toBeNull()
+  })
+
   it.each([
     ['pending before the deadline', 500, 'pending'],
     ['missed once the deadline has passed', 700, 'missed'],
