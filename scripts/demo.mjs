@@ -3,18 +3,41 @@
 // seeded into the SQLite file (migrations run when the server starts; seeding twice adds nothing).
 // Mail goes to the built-in fake SMTP server unless NUXT_SMTP_HOST is set.
 import { spawnSync, spawn } from 'node:child_process'
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
+import { existsSync, mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs'
 import { randomBytes } from 'node:crypto'
-import { resolve } from 'node:path'
+import { join, resolve } from 'node:path'
 
 const root = resolve(import.meta.dirname, '..')
 const dataDir = resolve(root, '.data')
 mkdirSync(dataDir, { recursive: true })
 
-if (!process.argv.includes('--no-build')) {
-  console.log('[demo] building Brinkwater …')
+/** The newest modification time (ms) of the files a build is made from. */
+function newestSource() {
+  let newest = 0
+  const visit = (path) => {
+    if (!existsSync(path)) return
+    const st = statSync(path)
+    if (st.isDirectory()) {
+      for (const name of readdirSync(path)) if (name !== 'node_modules' && !name.startsWith('.')) visit(join(path, name))
+    }
+    else newest = Math.max(newest, st.mtimeMs)
+  }
+  for (const p of ['app', 'server', 'shared', 'public', 'drizzle', 'nuxt.config.ts', 'tailwind.config.ts', 'package.json', 'package-lock.json']) {
+    visit(resolve(root, p))
+  }
+  return newest
+}
+
+// The first run builds (a few minutes); later runs reuse the build while no source file is newer than it.
+const stamp = resolve(root, '.output/.demo-build')
+const current = existsSync(stamp) && existsSync(resolve(root, '.output/server/index.mjs')) && statSync(stamp).mtimeMs >= newestSource()
+if (process.argv.includes('--no-build')) console.log('[demo] --no-build: serving the existing build')
+else if (current && !process.argv.includes('--build')) console.log('[demo] the build is current (no source file is newer): skipping it; `npm run demo -- --build` forces one')
+else {
+  console.log('[demo] building Brinkwater (the first build takes a few minutes) …')
   const build = spawnSync('npx', ['nuxt', 'build'], { cwd: root, stdio: 'inherit' })
   if (build.status !== 0) process.exit(build.status ?? 1)
+  writeFileSync(stamp, new Date().toISOString())
 }
 
 // A session secret that survives restarts, so signed-in users stay signed in.
@@ -35,5 +58,19 @@ const env = {
 }
 console.log(`[demo] serving on http://localhost:${port} — sign in as facilitator@brinkwater.test / ${process.env.DEMO_PASSWORD ? '(DEMO_PASSWORD)' : 'brinkwater-demo'}`)
 const server = spawn(process.execPath, [resolve(root, '.output/server/index.mjs')], { cwd: root, env, stdio: 'inherit' })
-for (const sig of ['SIGINT', 'SIGTERM']) process.on(sig, () => server.kill(sig))
-server.on('exit', code => process.exit(code ?? 0))
+console.log('[demo] Ctrl-C stops the server (and its worker threads).')
+// Ctrl-C (or a SIGTERM from a process manager) goes on to the server; if it has not stopped within 5 s, it is killed.
+for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
+  process.on(sig, () => {
+    server.kill(sig)
+    setTimeout(() => server.kill('SIGKILL'), 5000).unref()
+  })
+}
+server.on('exit', (code, signal) => process.exit(code ?? (signal ? 0 : 1)))
+// Stopped through npm with a signal to npm alone (not the whole process group), npm exits without passing it on:
+// once the process that started this one is gone, stop the server too, so that nothing is left serving.
+const parent = process.ppid
+setInterval(() => {
+  try { process.kill(parent, 0) }
+  catch { process.emit('SIGTERM', 'SIGTERM') }
+}, 1000).unref()
