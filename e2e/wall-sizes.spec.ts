@@ -36,6 +36,8 @@ for (const [width, height, name] of [[1280, 720, '1280x720'], [1920, 1080, '1920
       expect(b.x + b.width).toBeLessThanOrEqual(width + 1)
       expect(b.x).toBeGreaterThanOrEqual(0)
     }
+    // The current solution is named above its figures, at least one line of it.
+    expect((await box('wall-solution-label')).height).toBeGreaterThan(20)
     const probability = page.getByTestId('live-headline').locator('dd').first()
     const p = (await probability.boundingBox())!
     expect(p.y + p.height).toBeLessThanOrEqual(height)
