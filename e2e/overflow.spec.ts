@@ -77,8 +77,10 @@ for (const size of SIZES) {
 
       const civ = await open('civil@brinkwater.test')
       await civ.page.goto(`${x}/room`)
-      await expect(civ.page.getByTestId('zone-panel')).toBeVisible()
       await noSidewaysScroll(civ.page, `room-${tag}`)
+      await civ.page.getByTestId('room-tab-zones').click()
+      await expect(civ.page.getByTestId('zone-panel')).toBeVisible()
+      await noSidewaysScroll(civ.page, `room-zones-${tag}`)
       await civ.context.close()
 
       const ev = await open('evaluator@brinkwater.test')

@@ -27,6 +27,7 @@ test('civil protection draws a zone on its map; control and the wall see it live
 
   const civ = await person(browser, 'civil@brinkwater.test')
   await civ.page.goto(`/exercises/${id}/room`)
+  await civ.page.getByTestId('room-zones-link').click()
   const panel = civ.page.getByTestId('zone-panel')
   await panel.scrollIntoViewIfNeeded()
   await panel.getByTestId('zone-draw-circle').click()
