@@ -2,6 +2,7 @@
  * Map colours for the SVG renderer, taken from Brinkwater's palette (tailwind.config.ts): water in tide,
  * land in abyss, the corridor in flare, blast in coral. Colour is always paired with a shape or a dash.
  */
+import { THRESHOLDS } from '../hazard/types'
 import type { RunUpClass } from './overlays'
 import type { PointKind } from './scene'
 
@@ -18,6 +19,11 @@ export interface MapPalette {
   halo: string
   points: Record<PointKind, string>
   ring: string
+  /**
+   * Footprint shading by threshold kind (blast in coral, heat in flare): colour and opacity of the 1 in 10, even-odds
+   * and 9 in 10 areas, drawn on top of each other (so the inner areas come out darker), and the median-case line.
+   */
+  footprint: Record<'overpressure' | 'thermal', { fills: Array<[string, number]>; line: string }>
   site: Record<RunUpClass, string>
   siteEdge: string
   marking: string
@@ -31,6 +37,10 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     corridor: '#f07b10', corridorEdge: '#ab420b', earlier: '#526c84', text: '#17202c', halo: '#ffffff',
     points: { sea: '#0d5c81', land: '#c22f45', air: '#17202c' },
     ring: '#9f2339',
+    footprint: {
+      overpressure: { fills: [['#f2707a', 0.22], ['#e0475a', 0.3], ['#9f2339', 0.42]], line: '#9f2339' },
+      thermal: { fills: [['#ffbd5e', 0.3], ['#f07b10', 0.3], ['#ab420b', 0.42]], line: '#8a3510' },
+    },
     site: { high: '#c22f45', moderate: '#fd9a2e', low: '#74cdee', none: '#ffffff', inland: '#7189a0', offshore: '#b7c6d3' },
     siteEdge: '#0d131b',
     marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#ffffff',
@@ -40,10 +50,19 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     corridor: '#fd9a2e', corridorEdge: '#ffbd5e', earlier: '#9fb1c1', text: '#f3f6f8', halo: '#0d131b',
     points: { sea: '#74cdee', land: '#f2707a', air: '#f3f6f8' },
     ring: '#f2707a',
+    footprint: {
+      overpressure: { fills: [['#c22f45', 0.3], ['#e0475a', 0.34], ['#f2707a', 0.46]], line: '#f2707a' },
+      thermal: { fills: [['#d25d08', 0.3], ['#fd9a2e', 0.32], ['#ffbd5e', 0.46]], line: '#ffbd5e' },
+    },
     site: { high: '#e0475a', moderate: '#fd9a2e', low: '#74cdee', none: '#0d131b', inland: '#9fb1c1', offshore: '#526c84' },
     siteEdge: '#f3f6f8',
     marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#17202c',
   },
+}
+
+/** The kind of a footprint threshold, for its colours: blast (overpressure) or heat. */
+export function footprintKind(key: string): 'overpressure' | 'thermal' {
+  return THRESHOLDS.find(t => t.key === key)?.kind === 'thermal' ? 'thermal' : 'overpressure'
 }
 
 /** Dash pattern of each blast ring, outermost (least damage) finest. */
