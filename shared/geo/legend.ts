@@ -53,14 +53,14 @@ export function footprintName(key: string): string {
 }
 
 /**
- * The shading in words: "Shading: the chance, if it strikes, that windows shatter there — 1 in 10, even odds,
- * 9 in 10 (from 2,000 sampled impacts)." Several keys are named together.
+ * The shading in words: "Shading: the chance, if it strikes, that windows shatter there — faintest 1 in 10, then even
+ * odds, strongest 9 in 10 (from 2,000 sampled impacts, conditional on impact)." Several keys are named together.
  */
 export function footprintShadingText(keys: readonly string[], samples: number): string {
   const what = keys.length === 1
     ? (FOOTPRINT_EVENTS[keys[0]!] ?? keys[0]!)
     : 'each threshold is passed (one colour each)'
-  return `Shading: the chance, if it strikes, that ${what} there — lightest 1 in 10, then even odds, darkest 9 in 10 `
+  return `Shading: the chance, if it strikes, that ${what} there — faintest 1 in 10, then even odds, strongest 9 in 10 `
     + `(from ${samples.toLocaleString('en-GB')} sampled impacts, conditional on impact).`
 }
 

@@ -38,8 +38,8 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     points: { sea: '#0d5c81', land: '#c22f45', air: '#17202c' },
     ring: '#9f2339',
     footprint: {
-      overpressure: { fills: [['#f2707a', 0.22], ['#e0475a', 0.3], ['#9f2339', 0.42]], line: '#9f2339' },
-      thermal: { fills: [['#ffbd5e', 0.3], ['#f07b10', 0.3], ['#ab420b', 0.42]], line: '#8a3510' },
+      overpressure: { fills: [['#f2707a', 0.22], ['#e0475a', 0.3], ['#9f2339', 0.36]], line: '#9f2339' },
+      thermal: { fills: [['#ffbd5e', 0.3], ['#f07b10', 0.3], ['#ab420b', 0.36]], line: '#8a3510' },
     },
     site: { high: '#c22f45', moderate: '#fd9a2e', low: '#74cdee', none: '#ffffff', inland: '#7189a0', offshore: '#b7c6d3' },
     siteEdge: '#0d131b',
@@ -51,8 +51,8 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     points: { sea: '#74cdee', land: '#f2707a', air: '#f3f6f8' },
     ring: '#f2707a',
     footprint: {
-      overpressure: { fills: [['#c22f45', 0.3], ['#e0475a', 0.34], ['#f2707a', 0.46]], line: '#f2707a' },
-      thermal: { fills: [['#d25d08', 0.3], ['#fd9a2e', 0.32], ['#ffbd5e', 0.46]], line: '#ffbd5e' },
+      overpressure: { fills: [['#9f2339', 0.35], ['#c22f45', 0.35], ['#e0475a', 0.4]], line: '#f2707a' },
+      thermal: { fills: [['#ab420b', 0.35], ['#d25d08', 0.35], ['#f07b10', 0.4]], line: '#ffbd5e' },
     },
     site: { high: '#e0475a', moderate: '#fd9a2e', low: '#74cdee', none: '#0d131b', inland: '#9fb1c1', offshore: '#526c84' },
     siteEdge: '#f3f6f8',
@@ -63,6 +63,23 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
 /** The kind of a footprint threshold, for its colours: blast (overpressure) or heat. */
 export function footprintKind(key: string): 'overpressure' | 'thermal' {
   return THRESHOLDS.find(t => t.key === key)?.kind === 'thermal' ? 'thermal' : 'overpressure'
+}
+
+/**
+ * The same footprint colours as Tailwind classes for the Vue map and its legend (light, then dark): the fill of the
+ * 1 in 10, even-odds and 9 in 10 areas (stacked), the median-case line and the label.
+ */
+export const FOOTPRINT_CLASSES: Record<'overpressure' | 'thermal', { fills: string[]; line: string; text: string }> = {
+  overpressure: {
+    fills: ['fill-coral-400/[0.22] dark:fill-coral-700/[0.35]', 'fill-coral-500/30 dark:fill-coral-600/[0.35]', 'fill-coral-700/[0.36] dark:fill-coral-500/40'],
+    line: 'stroke-coral-700 dark:stroke-coral-400',
+    text: 'fill-coral-700 dark:fill-coral-400',
+  },
+  thermal: {
+    fills: ['fill-flare-300/30 dark:fill-flare-700/[0.35]', 'fill-flare-500/30 dark:fill-flare-600/[0.35]', 'fill-flare-700/[0.36] dark:fill-flare-500/40'],
+    line: 'stroke-flare-800 dark:stroke-flare-300',
+    text: 'fill-flare-800 dark:fill-flare-300',
+  },
 }
 
 /** Dash pattern of each blast ring, outermost (least damage) finest. */

@@ -44,12 +44,7 @@ export function renderMapSvg(o: RenderMapOptions): string {
   push(`<path class="graticule" d="${scene.graticule}" fill="none" stroke="${c.graticule}" stroke-opacity="0.5" stroke-width="0.6"/>`)
   if (scene.land) push(`<path class="land" d="${scene.land}" fill="${c.land}" stroke="${c.coast}" stroke-width="0.7"/>`)
   if (scene.borders) push(`<path class="borders" d="${scene.borders}" fill="none" stroke="${c.borders}" stroke-width="0.6" stroke-dasharray="3 2"/>`)
-  for (const k of scene.corridors) {
-    if (k.current) push(`<path class="corridor corridor-current" data-corridor="current" d="${k.band}" fill="${c.corridor}" fill-opacity="0.22" stroke="${c.corridorEdge}" stroke-width="1.5"/>`)
-    else push(`<path class="corridor corridor-earlier" data-corridor="earlier" d="${k.band}" fill="none" stroke="${c.earlier}" stroke-opacity="0.6" stroke-width="1" stroke-dasharray="5 4"/>`)
-  }
-  const cur = scene.corridors.find(k => k.current)
-  if (cur) push(`<path class="track" d="${cur.track}" fill="none" stroke="${c.corridorEdge}" stroke-width="1" stroke-dasharray="1 3"/>`)
+  // Footprints under the corridors, so the band stays on top of the shading.
   for (const f of scene.footprints) {
     const paint = c.footprint[footprintKind(f.key)]
     f.levels.forEach((l, i) => {
@@ -57,6 +52,12 @@ export function renderMapSvg(o: RenderMapOptions): string {
       push(`<path class="footprint" data-footprint="${escapeXml(f.key)}" data-probability="${l.probability}" d="${l.d}" fill="${fill}" fill-opacity="${opacity}"/>`)
     })
   }
+  for (const k of scene.corridors) {
+    if (k.current) push(`<path class="corridor corridor-current" data-corridor="current" d="${k.band}" fill="${c.corridor}" fill-opacity="0.22" stroke="${c.corridorEdge}" stroke-width="1.5"/>`)
+    else push(`<path class="corridor corridor-earlier" data-corridor="earlier" d="${k.band}" fill="none" stroke="${c.earlier}" stroke-opacity="0.6" stroke-width="1" stroke-dasharray="5 4"/>`)
+  }
+  const cur = scene.corridors.find(k => k.current)
+  if (cur) push(`<path class="track" d="${cur.track}" fill="none" stroke="${c.corridorEdge}" stroke-width="1" stroke-dasharray="1 3"/>`)
   const kinds: PointKind[] = ['sea', 'land', 'air']
   for (const kind of kinds) {
     const d = pointsPath(scene.points, kind)
