@@ -24,7 +24,49 @@ export function toneLabel(t: RunUpClass): string {
   return RUN_UP_CLASSES.find(c => c.key === t)?.label ?? t
 }
 
-/** Short label on a ring: "6.9 kPa (1.0 psi) · 59 km (32 nmi)". */
+/** Short label on a ring: "6.9 kPa (1.0 psi) · 59 km (32 nmi)" (the distance alone for a ring without a pressure). */
 export function ringLabel(r: Pick<SceneRing, 'thresholdKPa' | 'radiusKm'>): string {
-  return `${kPaText(r.thresholdKPa)} · ${kmText(r.radiusKm)}`
+  return r.thresholdKPa === undefined ? kmText(r.radiusKm) : `${kPaText(r.thresholdKPa)} · ${kmText(r.radiusKm)}`
+}
+
+/** Short names of the footprint thresholds for the map's selector and labels. */
+export const FOOTPRINT_NAMES: Record<string, string> = {
+  windows: 'Windows shatter',
+  houseCollapse: 'Houses collapse',
+  multistoreyCollapse: 'Multistorey collapse',
+  burn2: 'Second-degree burns',
+}
+
+/** What happens at a footprint threshold, as the middle of a sentence ("the chance … that <this> there"). */
+const FOOTPRINT_EVENTS: Record<string, string> = {
+  windows: 'windows shatter',
+  houseCollapse: 'wood-frame houses collapse',
+  multistoreyCollapse: 'multistorey wall-bearing buildings collapse',
+  burn2: 'exposed skin gets second-degree burns',
+}
+
+/** The footprint levels in words, weakest first (FOOTPRINT_LEVELS of the engine). */
+export const FOOTPRINT_LEVEL_WORDS: Record<number, string> = { 0.1: '1 in 10', 0.5: 'even odds', 0.9: '9 in 10' }
+
+export function footprintName(key: string): string {
+  return FOOTPRINT_NAMES[key] ?? key
+}
+
+/**
+ * The shading in words: "Shading: the chance, if it strikes, that windows shatter there — faintest 1 in 10, then even
+ * odds, strongest 9 in 10 (from 2,000 sampled impacts, conditional on impact)." Several keys are named together.
+ */
+export function footprintShadingText(keys: readonly string[], samples: number): string {
+  const what = keys.length === 1
+    ? (FOOTPRINT_EVENTS[keys[0]!] ?? keys[0]!)
+    : 'each threshold is passed (one colour each)'
+  return `Shading: the chance, if it strikes, that ${what} there — faintest 1 in 10, then even odds, strongest 9 in 10 `
+    + `(from ${samples.toLocaleString('en-GB')} sampled impacts, conditional on impact).`
+}
+
+/** The thin line in words. */
+export function footprintLineText(basis: MedianBlastCase | null): string {
+  if (!basis) return 'Thin line: not available for this solution.'
+  const how = basis.regime === 'airburst' ? `an airburst at ${sig(basis.burstAltitudeM / 1000)} km` : 'a surface burst'
+  return `Thin line: the same threshold for the middle case, the median entry energy ${sig(basis.energyMt)} Mt TNT as ${how}.`
 }

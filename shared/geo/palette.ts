@@ -2,6 +2,7 @@
  * Map colours for the SVG renderer, taken from Brinkwater's palette (tailwind.config.ts): water in tide,
  * land in abyss, the corridor in flare, blast in coral. Colour is always paired with a shape or a dash.
  */
+import { THRESHOLDS } from '../hazard/types'
 import type { RunUpClass } from './overlays'
 import type { PointKind } from './scene'
 
@@ -18,6 +19,11 @@ export interface MapPalette {
   halo: string
   points: Record<PointKind, string>
   ring: string
+  /**
+   * Footprint shading by threshold kind (blast in coral, heat in flare): colour and opacity of the 1 in 10, even-odds
+   * and 9 in 10 areas, drawn on top of each other (so the inner areas come out darker), and the median-case line.
+   */
+  footprint: Record<'overpressure' | 'thermal', { fills: Array<[string, number]>; line: string }>
   site: Record<RunUpClass, string>
   siteEdge: string
   marking: string
@@ -31,6 +37,10 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     corridor: '#f07b10', corridorEdge: '#ab420b', earlier: '#526c84', text: '#17202c', halo: '#ffffff',
     points: { sea: '#0d5c81', land: '#c22f45', air: '#17202c' },
     ring: '#9f2339',
+    footprint: {
+      overpressure: { fills: [['#f2707a', 0.22], ['#e0475a', 0.3], ['#9f2339', 0.36]], line: '#9f2339' },
+      thermal: { fills: [['#ffbd5e', 0.3], ['#f07b10', 0.3], ['#ab420b', 0.36]], line: '#8a3510' },
+    },
     site: { high: '#c22f45', moderate: '#fd9a2e', low: '#74cdee', none: '#ffffff', inland: '#7189a0', offshore: '#b7c6d3' },
     siteEdge: '#0d131b',
     marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#ffffff',
@@ -40,9 +50,35 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     corridor: '#fd9a2e', corridorEdge: '#ffbd5e', earlier: '#9fb1c1', text: '#f3f6f8', halo: '#0d131b',
     points: { sea: '#74cdee', land: '#f2707a', air: '#f3f6f8' },
     ring: '#f2707a',
+    footprint: {
+      overpressure: { fills: [['#9f2339', 0.35], ['#c22f45', 0.35], ['#e0475a', 0.4]], line: '#f2707a' },
+      thermal: { fills: [['#ab420b', 0.35], ['#d25d08', 0.35], ['#f07b10', 0.4]], line: '#ffbd5e' },
+    },
     site: { high: '#e0475a', moderate: '#fd9a2e', low: '#74cdee', none: '#0d131b', inland: '#9fb1c1', offshore: '#526c84' },
     siteEdge: '#f3f6f8',
     marking: '#fd9a2e', markingText: '#0d131b', legendBg: '#17202c',
+  },
+}
+
+/** The kind of a footprint threshold, for its colours: blast (overpressure) or heat. */
+export function footprintKind(key: string): 'overpressure' | 'thermal' {
+  return THRESHOLDS.find(t => t.key === key)?.kind === 'thermal' ? 'thermal' : 'overpressure'
+}
+
+/**
+ * The same footprint colours as Tailwind classes for the Vue map and its legend (light, then dark): the fill of the
+ * 1 in 10, even-odds and 9 in 10 areas (stacked), the median-case line and the label.
+ */
+export const FOOTPRINT_CLASSES: Record<'overpressure' | 'thermal', { fills: string[]; line: string; text: string }> = {
+  overpressure: {
+    fills: ['fill-coral-400/[0.22] dark:fill-coral-700/[0.35]', 'fill-coral-500/30 dark:fill-coral-600/[0.35]', 'fill-coral-700/[0.36] dark:fill-coral-500/40'],
+    line: 'stroke-coral-700 dark:stroke-coral-400',
+    text: 'fill-coral-700 dark:fill-coral-400',
+  },
+  thermal: {
+    fills: ['fill-flare-300/30 dark:fill-flare-700/[0.35]', 'fill-flare-500/30 dark:fill-flare-600/[0.35]', 'fill-flare-700/[0.36] dark:fill-flare-500/40'],
+    line: 'stroke-flare-800 dark:stroke-flare-300',
+    text: 'fill-flare-800 dark:fill-flare-300',
   },
 }
 

@@ -5,16 +5,18 @@
 import { geoGraticule, geoPath, type GeoProjection } from 'd3-geo'
 import type { FeatureCollection, Geometry } from 'geojson'
 import type { LonLat } from '../hazard/schema'
+import type { Footprint } from '../hazard/types'
 import { boxesOverlap, type Atlas, type LonLatBox } from './atlas'
 import { corridorBand, corridorLine } from './corridor'
 import type { RunUpClass } from './overlays'
 import { geodesicRing } from './rings'
-import { destination } from './sphere'
+import { destination, distanceKm } from './sphere'
 import { projectionFor, type CorridorShape, type MapView, type Padding } from './views'
 
 export interface SceneCorridor extends CorridorShape { label?: string }
 export interface SceneSite { id: string; name: string; lon: number; lat: number; population: number; tone: RunUpClass }
-export interface SceneRing { key: string; label: string; radiusKm: number; thresholdKPa: number }
+/** A ring of equal distance around the nominal point: a blast threshold (kPa) or, beside footprints, a median-case contour. */
+export interface SceneRing { key: string; label: string; radiusKm: number; thresholdKPa?: number }
 /** sea: surface impact at sea; land: surface impact on land; air: airburst (over land or sea). */
 export type PointKind = 'sea' | 'land' | 'air'
 
@@ -31,6 +33,11 @@ export interface SceneInput {
   sites?: readonly SceneSite[]
   /** Rings around the current nominal point. */
   rings?: readonly SceneRing[]
+  /**
+   * Probabilistic footprints to shade (Assessment.footprints, only the keys to show). With footprints the rings are
+   * their median-case contours: drawn thin and unlabelled, each threshold labelled once at its footprint instead.
+   */
+  footprints?: readonly Footprint[]
 }
 
 export interface MapScene {
@@ -41,8 +48,15 @@ export interface MapScene {
   land: string
   borders: string
   corridors: Array<{ band: string; track: string; current: boolean; label?: string }>
-  /** Largest first; labels alternate between the top (north) and the bottom (south) of the rings. */
+  /** Largest first; labels alternate between the top (north) and the bottom (south) of the rings (none beside footprints). */
   rings: Array<SceneRing & { d: string; labelAt: [number, number] | null; labelSide: 'top' | 'bottom' }>
+  /**
+   * Shaded footprint areas, one path per probability level (weakest first), and where the threshold's one label goes:
+   * the northernmost point on screen of its even-odds area (else of its weakest), null when out of frame.
+   */
+  footprints: Array<{ key: string; label: string; levels: Array<{ probability: number; d: string }>; labelAt: [number, number] | null }>
+  /** True when footprints were given: the rings are then median-case contours. */
+  probabilistic: boolean
   points: Array<{ x: number; y: number; kind: PointKind }>
   /** Impact points left out because they fall outside the frame. */
   culledPoints: number
@@ -72,7 +86,17 @@ export function buildScene(input: SceneInput): MapScene {
   const current = input.corridors[input.corridors.length - 1]
   const sites = input.sites ?? []
   const rings = input.rings ?? []
-  const ringKm = rings.reduce((m, r) => Math.max(m, r.radiusKm), 0)
+  const footprints = input.footprints ?? []
+  const probabilistic = input.footprints !== undefined
+  let ringKm = rings.reduce((m, r) => Math.max(m, r.radiusKm), 0)
+  // The regional view also fits the weakest level of each footprint shown.
+  if (current) {
+    for (const f of footprints) {
+      for (const poly of f.levels[0]?.geometry.coordinates ?? []) {
+        for (const p of poly[0] ?? []) ringKm = Math.max(ringKm, distanceKm(current.nominal, [p[0]!, p[1]!]))
+      }
+    }
+  }
   const projection = projectionFor(
     view,
     { width, height, corridors: input.corridors, sites: sites.map(s => [s.lon, s.lat] as LonLat), ringKm, padding: input.padding },
@@ -106,10 +130,23 @@ export function buildScene(input: SceneInput): MapScene {
         const at = projection(destination(current.nominal, i % 2 ? 180 : 0, r.radiusKm))
         const centre = projection(current.nominal)
         // A ring a few pixels across gets no label: it would only cover the corridor.
-        const wide = !!at && !!centre && Math.hypot(at[0] - centre[0], at[1] - centre[1]) >= 36
+        const wide = !probabilistic && !!at && !!centre && Math.hypot(at[0] - centre[0], at[1] - centre[1]) >= 36
         return { ...r, d: path(geodesicRing(current.nominal, r.radiusKm, 1)) ?? '', labelAt: wide && inFrame(at) ? at : null, labelSide }
       })
     : []
+
+  const sceneFootprints: MapScene['footprints'] = footprints.map((f) => {
+    const levels = f.levels.map(l => ({ probability: l.probability, d: path(l.geometry) ?? '' })).filter(l => l.d)
+    const edge = f.levels.find(l => l.probability === 0.5) ?? f.levels[0]
+    let labelAt: [number, number] | null = null
+    for (const poly of edge?.geometry.coordinates ?? []) {
+      for (const p of poly[0] ?? []) {
+        const xy = projection([p[0]!, p[1]!])
+        if (inFrame(xy) && (!labelAt || xy[1] < labelAt[1])) labelAt = xy
+      }
+    }
+    return { key: f.key, label: f.label, levels, labelAt }
+  })
 
   const points: MapScene['points'] = []
   let culledPoints = 0
@@ -135,6 +172,8 @@ export function buildScene(input: SceneInput): MapScene {
     borders,
     corridors,
     rings: sceneRings,
+    footprints: sceneFootprints,
+    probabilistic,
     points,
     culledPoints,
     sites: placed,

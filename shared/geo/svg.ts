@@ -1,12 +1,14 @@
 /**
  * The map as a standalone SVG string (no DOM, no Vue): for PDF reports and printable briefs on the
- * server. Carries the drill marking, a legend in plain words and the sources of the rings.
+ * server. Carries the drill marking, a legend in plain words and the basis of the footprints (or, for assessments
+ * without footprints, of the rings).
  */
 import { DRILL_MARKING } from '../utils/drill'
-import { kmText, kPaText } from './figures'
-import { POINT_LABELS, ringBasisText, ringLabel, toneLabel } from './legend'
+import {
+  FOOTPRINT_LEVEL_WORDS, POINT_LABELS, footprintLineText, footprintName, footprintShadingText, ringBasisText, ringLabel, toneLabel,
+} from './legend'
 import type { MedianBlastCase, RunUpClass } from './overlays'
-import { MAP_PALETTES, RING_DASH, siteGlyph } from './palette'
+import { MAP_PALETTES, RING_DASH, footprintKind, siteGlyph } from './palette'
 import { buildScene, pointsPath, type PointKind, type SceneInput } from './scene'
 import { placeLabels } from './labels'
 
@@ -15,7 +17,7 @@ export interface RenderMapOptions extends Omit<SceneInput, 'padding'> {
   title?: string
   /** The drill marking printed across the top; defaults to DRILL_MARKING. */
   marking?: string
-  /** Median case of the rings, for the legend (omit when no rings are drawn). */
+  /** Median case of the rings (or of the footprints' thin lines), for the legend (omit when none are drawn). */
   ringBasis?: MedianBlastCase | null
   legend?: boolean
   fontFamily?: string
@@ -42,6 +44,14 @@ export function renderMapSvg(o: RenderMapOptions): string {
   push(`<path class="graticule" d="${scene.graticule}" fill="none" stroke="${c.graticule}" stroke-opacity="0.5" stroke-width="0.6"/>`)
   if (scene.land) push(`<path class="land" d="${scene.land}" fill="${c.land}" stroke="${c.coast}" stroke-width="0.7"/>`)
   if (scene.borders) push(`<path class="borders" d="${scene.borders}" fill="none" stroke="${c.borders}" stroke-width="0.6" stroke-dasharray="3 2"/>`)
+  // Footprints under the corridors, so the band stays on top of the shading.
+  for (const f of scene.footprints) {
+    const paint = c.footprint[footprintKind(f.key)]
+    f.levels.forEach((l, i) => {
+      const [fill, opacity] = paint.fills[Math.min(i, paint.fills.length - 1)]!
+      push(`<path class="footprint" data-footprint="${escapeXml(f.key)}" data-probability="${l.probability}" d="${l.d}" fill="${fill}" fill-opacity="${opacity}"/>`)
+    })
+  }
   for (const k of scene.corridors) {
     if (k.current) push(`<path class="corridor corridor-current" data-corridor="current" d="${k.band}" fill="${c.corridor}" fill-opacity="0.22" stroke="${c.corridorEdge}" stroke-width="1.5"/>`)
     else push(`<path class="corridor corridor-earlier" data-corridor="earlier" d="${k.band}" fill="none" stroke="${c.earlier}" stroke-opacity="0.6" stroke-width="1" stroke-dasharray="5 4"/>`)
@@ -56,7 +66,14 @@ export function renderMapSvg(o: RenderMapOptions): string {
     else if (kind === 'land') push(`<path class="points points-land" d="${d}" fill="${c.points.land}" fill-opacity="0.7"/>`)
     else push(`<path class="points points-air" d="${d}" fill="none" stroke="${c.points.air}" stroke-width="0.9"/>`)
   }
-  for (const r of scene.rings) {
+  for (const r of scene.probabilistic ? scene.rings : []) {
+    const line = c.footprint[footprintKind(r.key)].line
+    push(`<path class="nominal-line" data-nominal="${escapeXml(r.key)}" d="${r.d}" fill="none" stroke="${line}" stroke-width="1.1"/>`)
+  }
+  for (const f of scene.footprints) {
+    if (f.labelAt) push(text(footprintName(f.key), f.labelAt[0], f.labelAt[1] - 9, 'middle', 11, c.footprint[footprintKind(f.key)].line, c.halo, 'footprint-label', '600'))
+  }
+  for (const r of scene.probabilistic ? [] : scene.rings) {
     push(`<path class="ring" data-ring="${r.key}" d="${r.d}" fill="none" stroke="${c.ring}" stroke-width="1.6" stroke-dasharray="${RING_DASH[r.key] ?? ''}"/>`)
     if (r.labelAt) push(text(
       ringLabel(r),
@@ -87,10 +104,11 @@ export function renderMapSvg(o: RenderMapOptions): string {
     o,
     scene.points.map(p => p.kind),
     scene.corridors.length > 1,
-    scene.rings.map(r => r.key),
+    scene.probabilistic ? [] : scene.rings.map(r => r.key),
     [...new Set(scene.sites.map(s => s.tone))],
     c,
     h,
+    scene.probabilistic ? (o.footprints ?? []).map(f => f.key) : null,
   ))
   push(`<rect width="${w}" height="${MARK_H}" fill="${c.marking}"/>`)
   push(text(o.marking ?? DRILL_MARKING, w / 2, MARK_H / 2, 'middle', 14, c.markingText, null, 'marking', 'bold', '0.3em'))
@@ -122,6 +140,7 @@ function legend(
   tones: RunUpClass[],
   c: typeof MAP_PALETTES.light,
   h: number,
+  footprints: string[] | null,
 ): string {
   const rows: Array<{ glyph: string; label: string }> = []
   rows.push({
@@ -143,14 +162,25 @@ function legend(
     const r = o.rings?.find(x => x.key === key)
     rows.push({
       glyph: `<path d="M0 0h18" stroke="${c.ring}" stroke-width="1.6" stroke-dasharray="${RING_DASH[key] ?? ''}"/>`,
-      label: r ? `${r.label}: ${kPaText(r.thresholdKPa)} within ${kmText(r.radiusKm)}` : key,
+      label: r ? `${r.label}: ${ringLabel(r).replace(' · ', ' within ')}` : key,
     })
+  }
+  for (const key of footprints ?? []) {
+    const paint = c.footprint[footprintKind(key)]
+    // Three swatches, weakest first; each stacks the layers the map stacks there.
+    const swatches = [1, 2, 3].map((n, i) => paint.fills.slice(0, n)
+      .map(([fill, op]) => `<rect x="${i * 8}" y="-5" width="7" height="10" fill="${fill}" fill-opacity="${op}"/>`).join('')).join('')
+    const words = [0.1, 0.5, 0.9].map(p => FOOTPRINT_LEVEL_WORDS[p]).join(', ')
+    rows.push({ glyph: `<g data-legend-footprint="${escapeXml(key)}">${swatches}</g>`, label: `${footprintName(key)}: chance ${words}` })
+    rows.push({ glyph: `<path d="M0 0h22" stroke="${paint.line}" stroke-width="1.1"/>`, label: `${footprintName(key)}, middle case` })
   }
   for (const t of tones) rows.push({
     glyph: `<path d="${siteGlyph(t, 9, 0, 5)}" fill="${c.site[t]}" stroke="${c.siteEdge}"/>`,
     label: toneLabel(t),
   })
-  const note = rings.length ? ringBasisText(o.ringBasis ?? null) : ''
+  const note = footprints
+    ? (footprints.length ? `${footprintShadingText(footprints, o.impactPoints?.length ?? 0)} ${footprintLineText(o.ringBasis ?? null)}` : '')
+    : rings.length ? ringBasisText(o.ringBasis ?? null) : ''
   const lineH = 16, width = 380
   const noteLines = wrap(note, 66)
   const height = 12 + rows.length * lineH + noteLines.length * 13 + 8

@@ -6,9 +6,10 @@ import { percentiles } from './stats'
 import { palermoScale, torinoScale } from './scales'
 import { BLAST } from './blast'
 import { OCEAN, TSUNAMI_SOURCE_LAWS } from './ocean'
+import { damageFootprints, damageReach } from './footprint'
 
 /** Engine version, stored with every assessment. */
-export const MODEL_VERSION = 'brinkwater-hazard/2.1.0'
+export const MODEL_VERSION = 'brinkwater-hazard/2.2.0'
 /** Default number of realisations, default seed, and the largest sample count accepted. */
 export const DEFAULT_SAMPLES = 20_000
 export const DEFAULT_SEED = 1
@@ -59,6 +60,10 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
   for (let i = 0; i < n; i++) { if (S.flags[i]! & FLAG_AIRBURST) air++; if (S.flags[i]! & FLAG_TSUNAMI) tsu++ }
   const energyMt = percentiles(S.energyMt, n)
   const years = Math.max(1 / 365.25, (Date.parse(solution.impactTime) - Date.parse(solution.epoch)) / YEAR_MS)
+  const thinned = thinIndices(n)
+  const r4 = (x: number) => Math.round(x * 1e4) / 1e4
+  const impactPoints = thinned.map(i => [r4(S.lon[i]!), r4(S.lat[i]!), S.flags[i]! & 3] as [number, number, number])
+  const reach = damageReach(S, thinned)
   const ps = palermoScale({ probability: solution.impactProbability, energyMt: energyMt.p50, yearsToImpact: years })
   return {
     modelVersion: MODEL_VERSION,
@@ -81,7 +86,9 @@ export function assessSolution(solution: OrbitSolution, sites: Site[], options: 
     // Floored at −20 so that a zero probability stays a finite JSON number.
     palermo: Number.isFinite(ps) ? ps : -20,
     warnings: warnings(solution, S, results, air, tsu),
-    impactPoints: thin(S),
+    impactPoints,
+    reach,
+    footprints: damageFootprints(impactPoints, reach),
   }
 }
 
@@ -111,11 +118,14 @@ function gather(S: SampleSet, x: Float64Array, flag: number, count: number): Flo
   return out
 }
 
-/** Every k-th impact point, at most 2000, rounded to 1e-4°: [lon, lat, flags] (bit0 sea, bit1 airburst). */
-function thin(S: SampleSet): Array<[number, number, number]> {
-  const step = Math.ceil(S.n / MAX_MAP_POINTS)
-  const out: Array<[number, number, number]> = []
-  for (let i = 0; i < S.n; i += step) out.push([Math.round(S.lon[i]! * 1e4) / 1e4, Math.round(S.lat[i]! * 1e4) / 1e4, S.flags[i]! & 3])
+/**
+ * The realisations kept for maps: every k-th, at most 2000. Their impact points are stored rounded to 1e-4°
+ * ([lon, lat, flags], bit0 sea, bit1 airburst), with their reach and the footprints drawn from them.
+ */
+function thinIndices(n: number): number[] {
+  const step = Math.ceil(n / MAX_MAP_POINTS)
+  const out: number[] = []
+  for (let i = 0; i < n; i += step) out.push(i)
   return out
 }
 

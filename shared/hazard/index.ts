@@ -12,7 +12,7 @@ export {
   overpressurePa, peakWindMS, overpressureRadiusM, surfaceBurstOverpressurePa, machOnsetScaledM, regularReflectionPa, blastAltitudeFactor,
   severeDamageRadiusKmHillsGoda, BLAST,
 } from './blast'
-export { thermalExposureJM2, radiantIntensityJSr, fireballRadiusM, visibleFraction, burnThresholdJM2, THERMAL } from './thermal'
+export { thermalExposureJM2, radiantIntensityJSr, fireballRadiusM, visibleFraction, burnThresholdJM2, thermalRadiusM, THERMAL } from './thermal'
 export { seismicMagnitude, effectiveMagnitude } from './seismic'
 export {
   waterCavityDiameterM, seafloorSpeedKmS, rimWaveAmplitudeM, tsunamiAmplitudeAtM, shoaledAmplitudeM, runUpM,
@@ -24,5 +24,6 @@ export { palermoScale, torinoScale } from './scales'
 export { HazardRng, sampleAlbedoWright2016, sampleShoemakerAngleDeg, CLASS_ALBEDO, CLASS_DENSITY, WRIGHT_2016 } from './sampling'
 export { sampleSolutionCorridorPoint } from './corridor'
 export { isLand } from './land'
+export { damageReach, damageFootprints, FOOTPRINT_LEVELS, FOOTPRINT_GRID_CELLS } from './footprint'
 export { assessSolution, releaseHazardWorkspace, MODEL_VERSION, DEFAULT_SAMPLES, DEFAULT_SEED } from './assess'
 export type { AssessOptionsInput } from './assess'

@@ -98,3 +98,26 @@ export function thermalExposureJM2(i: { energyMt: number; groundRangeM: number; 
 export function burnThresholdJM2(thresholdAt1MtJM2: number, energyMt: number): number {
   return thresholdAt1MtJM2 * Math.pow(energyMt, 1 / 6)
 }
+
+/**
+ * Ground range within which the thermal exposure reaches a burn level (for the map's median-case contour): the
+ * largest range at which `thermalExposureJM2` is at least `burnThresholdJM2(thresholdAt1MtJM2, energyMt)`. The
+ * exposure never rises with range (the hidden height of the source grows, 1/(r² + z²) falls), so bisection on
+ * log range is exact to 0.5 m. Sources: as `thermalExposureJM2` and `burnThresholdJM2`.
+ * @param i as `thermalExposureJM2` without the range; thresholdAt1MtJM2 burn level at 1 Mt, J/m²
+ * @returns ground range, m (0 when the level is not reached at 1 m)
+ */
+export function thermalRadiusM(i: { energyMt: number; burstAltitudeM: number; airEnergyMt?: number }, thresholdAt1MtJM2: number): number {
+  if (!(i.energyMt > 0) || !(thresholdAt1MtJM2 > 0)) return 0
+  const level = burnThresholdJM2(thresholdAt1MtJM2, i.energyMt)
+  const at = (r: number) => thermalExposureJM2({ ...i, groundRangeM: r })
+  if (!(at(1) >= level)) return 0
+  let lo = 0, hi = Math.log(Math.PI * EARTH_RADIUS_M)
+  if (at(Math.exp(hi)) >= level) return Math.exp(hi)
+  for (let k = 0; k < 64 && Math.exp(hi) - Math.exp(lo) > 0.5; k++) {
+    const m = 0.5 * (lo + hi)
+    if (at(Math.exp(m)) >= level) lo = m
+    else hi = m
+  }
+  return Math.exp(lo)
+}

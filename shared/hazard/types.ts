@@ -21,6 +21,12 @@ export const THRESHOLDS = [
   { key: 'runUp3m', kind: 'runUp', value: 3, label: 'Tsunami run-up above 3 m' },
 ] as const
 export type ThresholdKey = typeof THRESHOLDS[number]['key']
+/**
+ * Thresholds whose reach and probabilistic footprint each assessment carries (and whose median-case contours the
+ * map draws): the overpressures at which windows shatter, wood-frame houses collapse and multistorey wall-bearing
+ * buildings collapse, and second-degree burns.
+ */
+export const FOOTPRINT_KEYS = ['windows', 'houseCollapse', 'multistoreyCollapse', 'burn2'] as const satisfies readonly ThresholdKey[]
 /** Units of threshold values: overpressure Pa, wind m/s, thermal J/m² at 1 Mt (scaled by E_Mt^(1/6)), runUp m. */
 export type ThresholdKind = typeof THRESHOLDS[number]['kind']
 
@@ -131,12 +137,18 @@ export interface Assessment {
   warnings: ModelWarning[]
   /** A thinned, reproducible subset of sampled impact points for maps: [lon, lat, flags] (flags bit0 = sea, bit1 = airburst). */
   impactPoints: Array<[number, number, number]>
-  /** Reach radii of the thinned realisations (index-aligned with impactPoints); absent from earlier hazard models. */
+  /** Reach of each footprint threshold for the realisations of impactPoints (since 2.2.0; absent in older assessments). */
   reach?: DamageReach
+  /** Probabilistic footprints of the FOOTPRINT_KEYS thresholds (since 2.2.0; absent in older assessments). */
+  footprints?: Footprint[]
 }
 
 /**
  * Per thinned realisation (index-aligned with Assessment.impactPoints): ground radius, km, within which each threshold
  * is exceeded (0: nowhere).
  */
-export interface DamageReach { keys: ThresholdKey[]; radiiKm: number[][] }
+export interface DamageReach { keys: ThresholdKey[]; radiiKm: number[][] } // radiiKm[i][j] ↔ impactPoints[i], keys[j]
+/** lon/lat, area where P(exceeded) ≥ probability (conditional on impact, over the thinned realisations). */
+export interface FootprintLevel { probability: number; geometry: import('geojson').MultiPolygon }
+/** The probabilistic footprint of one threshold: areas at FOOTPRINT_LEVELS (0.1, 0.5, 0.9), levels without area left out. */
+export interface Footprint { key: ThresholdKey; label: string; levels: FootprintLevel[] }

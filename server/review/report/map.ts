@@ -1,4 +1,4 @@
-import { blastRings, defaultView, loadAtlas, renderMapSvg, runUpClass } from '#shared/geo'
+import { defaultView, loadAtlas, mapOverlays, renderMapSvg, runUpClass } from '#shared/geo'
 import type { OrbitSolution, Site } from '#shared/hazard/schema'
 import type { Assessment } from '#shared/hazard/types'
 
@@ -8,18 +8,21 @@ export interface MapSource {
   published: Array<{ solution: OrbitSolution; assessment: Assessment }>
 }
 
-/** The corridor map of the last published solution with the earlier corridors, as an SVG string (Plex fonts for the PDF). */
+/**
+ * The corridor map of the last published solution with the earlier corridors, as an SVG string (Plex fonts for the PDF):
+ * the default footprint with its median-case line, or the blast rings for an assessment without footprints.
+ */
 export async function finalMapSvg(
   { sites, published }: MapSource,
   opts: { width?: number; height?: number; fontFamily?: string } = {},
 ) {
   const last = published.at(-1)
   if (!last) return null
-  const { basis, rings } = blastRings(last.assessment)
+  const { basis, rings, footprints } = mapOverlays(last.assessment)
   const view = defaultView(last.solution.corridor)
   return renderMapSvg({
     width: opts.width ?? 1000, height: opts.height ?? 580, view, atlas: await loadAtlas(view === 'regional' ? '50m' : '110m'),
-    corridors: published.map(p => p.solution.corridor), impactPoints: last.assessment.impactPoints, rings, ringBasis: basis,
+    corridors: published.map(p => p.solution.corridor), impactPoints: last.assessment.impactPoints, rings, ringBasis: basis, footprints,
     sites: sites.flatMap((s) => {
       const a = last.assessment.sites.find(x => x.siteId === s.id)
       return a ? [{ id: s.id, name: s.name, lon: s.lon, lat: s.lat, population: s.population, tone: runUpClass(a) }] : []
