@@ -29,10 +29,10 @@ test('the map shades the damage footprint by chance and names it in its legend, 
   await expect(map.getByTestId('footprint-label')).toHaveText('Windows shatter')
   await expect(map.locator('[data-ring]')).toHaveCount(0)
   await expect(legend.getByTestId('legend-footprint-level')).toHaveText([
-    'Windows shatter: chance 1 in 10 or more', 'Windows shatter: chance even odds or more', 'Windows shatter: chance 9 in 10 or more',
+    'Windows shatter: chance 1 in 10 or more', 'Windows shatter: chance 1 in 2 or more', 'Windows shatter: chance 9 in 10 or more',
   ])
   await expect(legend.getByTestId('legend-footprint')).toContainText(
-    /Shading: the chance, if it strikes, that windows shatter there — faintest 1 in 10, then even odds, strongest 9 in 10 \(from 2,000 sampled impacts, conditional on impact\)\./,
+    /Shading: the chance, if it strikes, that windows shatter there — faintest 1 in 10, then 1 in 2, strongest 9 in 10 \(from 2,000 sampled impacts, conditional on impact\)\./,
   )
   await expect(legend.getByTestId('legend-footprint')).toContainText('Thin line: the same threshold for the middle case')
   // The drill marking and the caution stay with the figures.

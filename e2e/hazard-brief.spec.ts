@@ -73,7 +73,7 @@ test('a facilitator reads the threat brief, moves through the solutions and zoom
   await expect(headline.getByTestId('figure-energy')).toContainText(/5–95 %: \d+–\d+ Mt TNT/)
   await expect(headline.getByTestId('figure-probability')).toContainText('100 %')
   await expect(page.getByTestId('hazard-warnings')).toContainText('indicative')
-  await expect(page.getByTestId('map-legend')).toContainText('Windows shatter: chance even odds or more')
+  await expect(page.getByTestId('map-legend')).toContainText('Windows shatter: chance 1 in 2 or more')
   await expect(page.getByTestId('legend-footprint')).toContainText(/the median entry energy \d+ Mt TNT as a surface burst/)
   await expect(page.getByTestId('hazard-caution')).toContainText('for training only')
   await page.evaluate(() => window.scrollTo(0, 0))

@@ -46,7 +46,7 @@ const FOOTPRINT_EVENTS: Record<string, string> = {
 }
 
 /** The footprint levels in words, weakest first (FOOTPRINT_LEVELS of the engine). */
-export const FOOTPRINT_LEVEL_WORDS: Record<number, string> = { 0.1: '1 in 10', 0.5: 'even odds', 0.9: '9 in 10' }
+export const FOOTPRINT_LEVEL_WORDS: Record<number, string> = { 0.1: '1 in 10', 0.5: '1 in 2', 0.9: '9 in 10' }
 
 export function footprintName(key: string): string {
   return FOOTPRINT_NAMES[key] ?? key
@@ -60,7 +60,7 @@ export function footprintShadingText(keys: readonly string[], samples: number): 
   const what = keys.length === 1
     ? (FOOTPRINT_EVENTS[keys[0]!] ?? keys[0]!)
     : 'each threshold is passed (one colour each)'
-  return `Shading: the chance, if it strikes, that ${what} there — faintest 1 in 10, then even odds, strongest 9 in 10 `
+  return `Shading: the chance, if it strikes, that ${what} there — faintest 1 in 10, then 1 in 2, strongest 9 in 10 `
     + `(from ${samples.toLocaleString('en-GB')} sampled impacts, conditional on impact).`
 }
 

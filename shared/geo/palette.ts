@@ -5,6 +5,7 @@
 import { THRESHOLDS } from '../hazard/types'
 import type { RunUpClass } from './overlays'
 import type { PointKind } from './scene'
+import type { ZoneKind } from './zones'
 
 export interface MapPalette {
   sea: string
@@ -147,4 +148,14 @@ export const CHART_PALETTES: Record<'light' | 'dark', ChartPalette> = {
     band: 'rgba(54, 175, 223, 0.25)',
     background: '#17202c',
   },
+}
+
+/**
+ * Protective-action zones by kind (Tailwind classes for the map and its legend): evacuate in coral with a solid edge,
+ * shelter in place in tide with a long dash, keep out in the ink colour with a short dash; each labelled by name.
+ */
+export const ZONE_CLASSES: Record<ZoneKind, { path: string; dash?: string; legend: string }> = {
+  evacuate: { path: 'fill-coral-500/15 stroke-coral-700 dark:stroke-coral-400', legend: 'Evacuation zone' },
+  shelter: { path: 'fill-tide-500/15 stroke-tide-800 dark:stroke-tide-300', dash: '7 3', legend: 'Shelter-in-place zone' },
+  exclusion: { path: 'fill-abyss-900/10 stroke-abyss-900 dark:fill-abyss-50/10 dark:stroke-abyss-50', dash: '2 3', legend: 'Keep-out zone' },
 }

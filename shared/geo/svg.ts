@@ -11,6 +11,9 @@ import type { MedianBlastCase, RunUpClass } from './overlays'
 import { MAP_PALETTES, RING_DASH, footprintKind, siteGlyph } from './palette'
 import { buildScene, pointsPath, type PointKind, type SceneInput } from './scene'
 import { placeLabels } from './labels'
+import { geoPath } from 'd3-geo'
+import { destination } from './sphere'
+import { zoneKindLabel, zoneOutline, type ZoneKind, type ZoneShape } from './zones'
 
 export interface RenderMapOptions extends Omit<SceneInput, 'padding'> {
   theme?: 'light' | 'dark'
@@ -21,6 +24,8 @@ export interface RenderMapOptions extends Omit<SceneInput, 'padding'> {
   ringBasis?: MedianBlastCase | null
   legend?: boolean
   fontFamily?: string
+  /** Protective-action zones to outline and name. */
+  zones?: ReadonlyArray<{ kind: ZoneKind; name: string; shape: ZoneShape }>
 }
 
 export function escapeXml(s: string): string {
@@ -89,6 +94,19 @@ export function renderMapSvg(o: RenderMapOptions): string {
   if (scene.nominal) {
     const [x, y] = scene.nominal
     push(`<path class="nominal" d="M${x - 6} ${y}h12M${x} ${y - 6}v12" stroke="${c.text}" stroke-width="2"/>`)
+  }
+  // Zones: outline by kind (evacuate coral, shelter tide, keep out ink; each with its own dash), named above their top.
+  const zonePath = geoPath(scene.projection).digits(1)
+  for (const z of o.zones ?? []) {
+    const stroke = z.kind === 'evacuate' ? c.ring : z.kind === 'shelter' ? c.points.sea : c.text
+    const dash = z.kind === 'shelter' ? '7 3' : z.kind === 'exclusion' ? '2 3' : ''
+    push(`<path class="zone" data-zone="${z.kind}" d="${zonePath(zoneOutline(z.shape)) ?? ''}" fill="${stroke}" fill-opacity="0.1" stroke="${stroke}" stroke-width="1.6" stroke-dasharray="${dash}"/>`)
+    const tops = (z.shape.type === 'circle' ? [destination(z.shape.centre, 0, z.shape.radiusKm)] : z.shape.ring)
+      .map(p => scene.projection(p)).filter((p): p is [number, number] => !!p)
+    if (tops.length) {
+      const x = z.shape.type === 'circle' ? scene.projection(z.shape.centre)?.[0] ?? tops[0]![0] : (Math.min(...tops.map(t => t[0])) + Math.max(...tops.map(t => t[0]))) / 2
+      push(text(`${zoneKindLabel(z.kind)}: ${z.name}`, x, Math.min(...tops.map(t => t[1])) - 9, 'middle', 11, c.text, c.halo, 'zone-label', '600'))
+    }
   }
   const order = [...scene.sites].sort((a, b) => b.population - a.population)
   const labels = placeLabels(

@@ -6,7 +6,7 @@
  * distance d from the realisation's impact point exceeds the threshold exactly when d < radius (to the rounding).
  *
  * Footprint: the share of realisations whose reach disc covers a place, on a lon/lat grid, contoured with marching
- * squares (d3-contour) at 1 in 10, even odds and 9 in 10.
+ * squares (d3-contour) at 1 in 10, 1 in 2 and 9 in 10.
  */
 import { contours } from 'd3-contour'
 import type { MultiPolygon, Position } from 'geojson'
@@ -16,7 +16,7 @@ import { visibleFractionOfRatio } from './thermal'
 import { FOOTPRINT_KEYS, THRESHOLDS, type DamageReach, type Footprint, type FootprintLevel, type ThresholdKey } from './types'
 import { DEG, EARTH_RADIUS_M } from './units'
 
-/** Probability levels of the footprints: 1 in 10, even odds, 9 in 10 (conditional on impact). */
+/** Probability levels of the footprints: 1 in 10, 1 in 2, 9 in 10 (conditional on impact). */
 export const FOOTPRINT_LEVELS = [0.1, 0.5, 0.9] as const
 /** Grid cells along the longer side of the footprint grid (before the one-cell margin on each side). */
 export const FOOTPRINT_GRID_CELLS = 100

@@ -31,7 +31,8 @@ function zonesOf(events: readonly StoredEvent[], scenario: Scenario, last: Solut
   const team = (k: string) => (k === 'control' ? 'Control' : scenario.teams.find(t => t.key === k)?.name ?? k)
   const label = (k: ThresholdKey) => THRESHOLDS.find(t => t.key === k)?.label ?? k
   return feed.zones.map(z => ({
-    id: z.id, name: z.name, kind: zoneKindLabel(z.kind), team: team(z.teamKey), by: z.by.name, drawnAt: z.scenarioTime,
+    id: z.id, name: z.name, kind: zoneKindLabel(z.kind), kindKey: z.kind, shapeGeo: z.shape, team: team(z.teamKey), by: z.by.name,
+    drawnAt: z.scenarioTime,
     withdrawnAt: z.withdrawn?.scenarioTime ?? null, shape: zoneShapeText(z.shape), note: z.note,
     whenDrawn: z.figures ? zoneFiguresText(z.figures, label) : 'Drawn before any orbit solution was published.',
     atEnd: last && (!z.figures || z.figures.solutionKey !== last.key)
@@ -112,6 +113,7 @@ export function reportParts(exerciseId: string) {
   const mapSource: MapSource = {
     sites: scenario.sites,
     published: published.map(p => ({ solution: p.solution, assessment: p.assessment })),
+    zones: data.zones.filter(z => !z.withdrawnAt).map(z => ({ kind: z.kindKey, name: z.name, shape: z.shapeGeo })),
   }
   return { data, mapSource }
 }

@@ -1,11 +1,14 @@
 import { defaultView, loadAtlas, mapOverlays, renderMapSvg, runUpClass } from '#shared/geo'
 import type { OrbitSolution, Site } from '#shared/hazard/schema'
 import type { Assessment } from '#shared/hazard/types'
+import type { ZoneKind, ZoneShape } from '#shared/geo/zones'
 
 /** What the report's map is drawn from: the sites and the published solutions with their assessments, in order. */
 export interface MapSource {
   sites: Site[]
   published: Array<{ solution: OrbitSolution; assessment: Assessment }>
+  /** Protective-action zones in force at the end of the drill. */
+  zones?: Array<{ kind: ZoneKind; name: string; shape: ZoneShape }>
 }
 
 /**
@@ -13,7 +16,7 @@ export interface MapSource {
  * the default footprint with its median-case line, or the blast rings for an assessment without footprints.
  */
 export async function finalMapSvg(
-  { sites, published }: MapSource,
+  { sites, published, zones }: MapSource,
   opts: { width?: number; height?: number; fontFamily?: string } = {},
 ) {
   const last = published.at(-1)
@@ -23,6 +26,7 @@ export async function finalMapSvg(
   return renderMapSvg({
     width: opts.width ?? 1000, height: opts.height ?? 580, view, atlas: await loadAtlas(view === 'regional' ? '50m' : '110m'),
     corridors: published.map(p => p.solution.corridor), impactPoints: last.assessment.impactPoints, rings, ringBasis: basis, footprints,
+    zones,
     sites: sites.flatMap((s) => {
       const a = last.assessment.sites.find(x => x.siteId === s.id)
       return a ? [{ id: s.id, name: s.name, lon: s.lon, lat: s.lat, population: s.population, tone: runUpClass(a) }] : []

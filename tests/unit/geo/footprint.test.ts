@@ -68,7 +68,7 @@ describe('footprints on the map', () => {
     expect(svg).not.toContain('ring-label')
     // The legend's note is wrapped over several lines of text.
     const words = svg.replace(/<[^>]+>/g, ' ').replace(/\s+/g, ' ')
-    expect(words).toContain('Shading: the chance, if it strikes, that windows shatter there — faintest 1 in 10, then even odds, strongest 9 in 10')
+    expect(words).toContain('Shading: the chance, if it strikes, that windows shatter there — faintest 1 in 10, then 1 in 2, strongest 9 in 10')
     expect(words).toContain(`from ${a.impactPoints.length.toLocaleString('en-GB')} sampled impacts`)
     expect(words).toContain('Thin line: the same threshold for the middle case')
     expect(svg).toContain(DRILL_MARKING)

@@ -21,6 +21,19 @@ describe('renderMapSvg', () => {
     ringBasis: basis,
   }
 
+  it('outlines protective-action zones by kind and names them', () => {
+    const nominal = NARROW.nominal
+    const svg = renderMapSvg({ ...options, zones: [
+      { kind: 'evacuate', name: 'Harbour & beach', shape: { type: 'circle', centre: nominal, radiusKm: 20 } },
+      { kind: 'exclusion', name: 'Sea area', shape: { type: 'polygon', ring: [[nominal[0] - 0.5, nominal[1] - 0.3], [nominal[0] + 0.5, nominal[1] - 0.3], [nominal[0], nominal[1] + 0.4]] } },
+    ] })
+    expect(svg).toMatch(/<path class="zone" data-zone="evacuate" d="M[^"]+Z"/)
+    expect(svg).toMatch(/<path class="zone" data-zone="exclusion" d="M[^"]+Z"[^>]*stroke-dasharray="2 3"/)
+    expect(svg).toContain('Evacuate: Harbour &amp; beach')
+    expect(svg).toContain('Keep out: Sea area')
+    expect(renderMapSvg(options)).not.toContain('class="zone"')
+  })
+
   it('draws the current and earlier corridors as paths, the marking and the sites by name', async () => {
     const svg = renderMapSvg({ ...options, atlas: await loadAtlas('50m') })
     expect(svg.startsWith('<svg')).toBe(true)
