@@ -53,9 +53,14 @@ const lineAngleDeg = Number((Math.atan2(truePoint.zetaKm, truePoint.xiKm) * 180 
  * misses (a few in ten thousand can only come from the tail of the cloud: a nominal on the Earth gives at least
  * about 0.003 for any uncertainty the format allows); its corridor's nominal is then the median hit's point.
  */
-const series: Array<{
-  nominal: [number, number] | { alongKm: number; acrossKm: number }; along: number; across: number; samples?: number; waterDepthM?: number
-}> = [
+interface SeriesEntry {
+  nominal: [number, number] | { alongKm: number; acrossKm: number }
+  along: number
+  across: number
+  samples?: number
+  waterDepthM?: number
+}
+const series: SeriesEntry[] = [
   // The median hit of the first solution lies on land (the Sahara): water depth 0, as the format asks.
   { nominal: { alongKm: 0, acrossKm: -7714 }, along: 1_000_000, across: 6000, samples: 200_000, waterDepthM: 0 },
   { nominal: [-18.9, 36.533], along: 1_000_000, across: 2000, samples: 100_000 },
@@ -68,7 +73,7 @@ const series: Array<{
 if (series.length !== scenario.solutions.length) throw new Error('one series entry per solution')
 
 const psi = lineAngleDeg * Math.PI / 180
-const nominalOf = (n: (typeof series)[number]['nominal']) => Array.isArray(n)
+const nominalOf = (n: SeriesEntry['nominal']) => Array.isArray(n)
   ? bPlane(n)
   : {
       xiKm: Number((truePoint.xiKm + n.alongKm * Math.cos(psi) - n.acrossKm * Math.sin(psi)).toFixed(3)),
