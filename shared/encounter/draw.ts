@@ -17,9 +17,10 @@ export interface DrawEncounter {
 }
 
 /**
- * Least share of the b-plane draws that must hit for the hazard engine to draw impacts from an encounter: 0.1 %. Each
- * realisation is conditional on impact, so a miss is drawn again; below this share the draw would take more than a
- * thousand tries per impact (about 30 ms per 1 000 realisations). Our choice.
+ * Least share of an encounter's b-plane points that must hit for impacts to be drawn from it: 0.1 % (our choice). Below
+ * it a solution's impact probability is a few in ten thousand and its hits a thin tail of the cloud: the scenario check
+ * refuses `sampling: 'encounter'` there (from solutionFromEncounter's probability), and the engine refuses it when the
+ * cloud's mass over the capture disk's bounding box alone is below it.
  */
 export const MIN_ENCOUNTER_HIT_SHARE = 0.001
 
@@ -33,21 +34,81 @@ export interface EncounterHit {
 }
 
 /**
- * A sampler of the hits of an encounter, for the hazard engine's Monte Carlo (`sampling: 'encounter'`): each call of
- * `drawInto` draws b-plane points from the Gaussian of the encounter (σ along the line of variations, σ across it,
- * centred on the nominal point: the draw of solutionFromEncounter) until one hits (b inside the capture disk, entry
- * angle above 0), and writes the Earth-fixed unit vector of its ground point. Each hit is placed on the Earth as it
- * has turned at its own arrival time, as in solutionFromEncounter. The entry speed is the same for every hit,
+ * Complementary error function, fractional error below 1.2e-7 everywhere: the Chebyshev fit `erfcc` of Press et al.
+ * (1992), Numerical Recipes in C, 2nd ed., sect. 6.2 (coefficients from memory; checked against table values in tests).
+ */
+export function erfc(x: number): number {
+  const z = Math.abs(x), t = 1 / (1 + 0.5 * z)
+  const r = t * Math.exp(-z * z - 1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418 + t * (-0.18628806
+    + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))))
+  return x >= 0 ? r : 2 - r
+}
+
+/** Standard normal mass between a and b (a <= b), computed on the tail side so that far tails keep their precision. */
+export function normalMass(a: number, b: number): number {
+  const k = Math.SQRT1_2
+  if (a >= 0) return 0.5 * (erfc(a * k) - erfc(b * k))
+  if (b <= 0) return 0.5 * (erfc(-b * k) - erfc(-a * k))
+  return 1 - 0.5 * erfc(-a * k) - 0.5 * erfc(b * k)
+}
+
+/**
+ * A standard normal variate truncated to [a, b] (a < b), by the mixed accept–reject algorithm of Robert (1995),
+ * Statistics and Computing 5, 121–125 (from memory): normal proposals when the interval holds the mean and is wide,
+ * uniform proposals with acceptance exp(-x²/2) (relative to the interval's peak) when it is narrow, and in a tail
+ * exponential proposals of rate α = (a + sqrt(a² + 4))/2 with acceptance exp(-(x - α)²/2). Each branch accepts at
+ * least about 40 % of its proposals; exact for any interval, however far in the tail.
+ */
+export function truncatedStandardNormal(rng: HazardRng, a: number, b: number): number {
+  if (a <= 0 && b >= 0) {
+    if (b - a >= 2.5) {
+      for (;;) {
+        const x = rng.normal()
+        if (x >= a && x <= b) return x
+      }
+    }
+    for (;;) {
+      const x = a + (b - a) * rng.uniform()
+      if (rng.uniform() <= Math.exp(-0.5 * x * x)) return x
+    }
+  }
+  if (b < 0) return -truncatedStandardNormal(rng, -b, -a)
+  const w = b - a
+  if (w < 1 && w * a < 1) {
+    for (;;) {
+      const x = a + w * rng.uniform()
+      if (rng.uniform() <= Math.exp(0.5 * (a * a - x * x))) return x
+    }
+  }
+  const alpha = 0.5 * (a + Math.sqrt(a * a + 4))
+  for (;;) {
+    const x = a - Math.log(rng.uniform()) / alpha
+    if (x > b) continue
+    const d = x - alpha
+    if (rng.uniform() <= Math.exp(-0.5 * d * d)) return x
+  }
+}
+
+/**
+ * A sampler of the hits of an encounter, for the hazard engine's Monte Carlo (`sampling: 'encounter'`). The b-plane
+ * point is `nominal + s û + c v̂` (û along the line of variations, v̂ across it) with s ~ N(0, σ along) and
+ * c ~ N(0, σ across), the Gaussian of solutionFromEncounter. Each call of `drawInto` returns one hit, drawn exactly from
+ * that Gaussian conditional on hitting: s and c are drawn from their normals truncated to the capture disk's bounding
+ * box in (s, c) (which holds every hit, so the truncation changes nothing once the disk is imposed), then a point
+ * outside the disk (or exactly on its rim, entry angle 0) is drawn again. Its Earth-fixed ground point is taken at the
+ * body's own arrival time, as in solutionFromEncounter. The entry speed is the same for every hit,
  * `sqrt(v∞² + 2 GM⊕ / r)` (energy conservation; Valsecchi et al. 2003, A&A 408, 1179–1196).
- * The whole run may try at most `realisations / MIN_ENCOUNTER_HIT_SHARE` points: beyond, it throws a RangeError.
- * Also when the nominal point lies so far from the disk that nothing can hit (more than 8.5 σ beyond it).
+ * Refused with a RangeError: a cloud whose mass over the bounding box is below MIN_ENCOUNTER_HIT_SHARE, and a run that
+ * would need more than `realisations / MIN_ENCOUNTER_HIT_SHARE` tries in all.
  */
 export class EncounterSampler {
   /** Entry speed of every hit, km/s. */
   readonly speedKmS: number
   /** Capture radius, km. */
   readonly captureRadiusKm: number
-  /** Points tried and hits drawn so far. */
+  /** The cloud's mass over the disk's bounding box: an upper bound of the share of b-plane points that hit. */
+  readonly boxMass: number
+  /** Points tried (inside the box) and hits drawn so far: hits / tries × boxMass estimates the hit share. */
   tries = 0
   hits = 0
   /** The last hit. */
@@ -59,6 +120,11 @@ export class EncounterSampler {
   private readonly e: DrawEncounter
   private readonly cp: number
   private readonly sp: number
+  /** Standardised box: s / σ along in [sa, sb], c / σ across in [ca, cb] (a zero sigma: the coordinate is 0). */
+  private readonly sa: number
+  private readonly sb: number
+  private readonly ca: number
+  private readonly cb: number
 
   constructor(encounter: DrawEncounter, realisations: number) {
     const e = encounter
@@ -66,14 +132,23 @@ export class EncounterSampler {
     this.e = e
     this.f = encounterFrame(e)
     this.speedKmS = this.f.vEntryKmS
-    this.captureRadiusKm = this.f.bCapKm
-    this.cp = Math.cos(e.lineAngleDeg * DEG)
-    this.sp = Math.sin(e.lineAngleDeg * DEG)
+    const R = this.captureRadiusKm = this.f.bCapKm
+    const cp = this.cp = Math.cos(e.lineAngleDeg * DEG)
+    const sp = this.sp = Math.sin(e.lineAngleDeg * DEG)
     const bNom = Math.hypot(e.nominal.xiKm, e.nominal.zetaKm)
     this.tauNominal = arrivalTimeS(bNom, this.f.vInfKmS, this.f.rKm)
     this.maxTries = Math.ceil(Math.max(1, realisations) / MIN_ENCOUNTER_HIT_SHARE)
-    // 8.5 σ: the normal of HazardRng reaches about 6.6 σ (see sampling.ts), so no point beyond can hit.
-    if (bNom - this.f.bCapKm > 8.5 * Math.max(e.sigmaAlongKm, e.sigmaAcrossKm)) throw this.tooFew()
+    // The nominal in (s, c): its offsets along and across the line; the disk spans s in -nu ± R and c in -nv ± R.
+    const nu = e.nominal.xiKm * cp + e.nominal.zetaKm * sp, nv = -e.nominal.xiKm * sp + e.nominal.zetaKm * cp
+    const box = (lo: number, hi: number, sigma: number): [number, number, number] => {
+      if (sigma > 0) return [lo / sigma, hi / sigma, normalMass(lo / sigma, hi / sigma)]
+      return [0, 0, lo <= 0 && hi >= 0 ? 1 : 0]
+    }
+    const [sa, sb, ms] = box(-nu - R, -nu + R, e.sigmaAlongKm)
+    const [ca, cb, mc] = box(-nv - R, -nv + R, e.sigmaAcrossKm)
+    this.sa = sa; this.sb = sb; this.ca = ca; this.cb = cb
+    this.boxMass = ms * mc
+    if (!(this.boxMass >= MIN_ENCOUNTER_HIT_SHARE)) throw this.tooFew()
   }
 
   private tooFew(): RangeError {
@@ -82,15 +157,16 @@ export class EncounterSampler {
   }
 
   /**
-   * Draws one hit: two normals per try (along, across) from rng; writes the Earth-fixed unit vector of its ground
-   * point into out[o..o+2]; the angle and b-plane point are in `hit`. @returns the entry angle, rad
+   * Draws one hit from rng; writes the Earth-fixed unit vector of its ground point into out[o..o+2]; the angle and
+   * b-plane point are in `hit`. @returns the entry angle, rad
    */
   drawInto(rng: HazardRng, out: Float64Array, o: number): number {
     const e = this.e, f = this.f, tmp = this.tmp, cp = this.cp, sp = this.sp
     const nx = e.nominal.xiKm, nz = e.nominal.zetaKm, sa = e.sigmaAlongKm, sc = e.sigmaAcrossKm
     for (;;) {
       if (++this.tries > this.maxTries) throw this.tooFew()
-      const s = sa * rng.normal(), c = sc * rng.normal()
+      const s = sa > 0 ? sa * truncatedStandardNormal(rng, this.sa, this.sb) : 0
+      const c = sc > 0 ? sc * truncatedStandardNormal(rng, this.ca, this.cb) : 0
       const xi = nx + s * cp - c * sp, zeta = nz + s * sp + c * cp
       // A hit; a grazing point exactly on the rim (angle 0) counts as a miss.
       if (!entryUnitInto(f, xi, zeta, tmp) || !(tmp[3]! > 0)) continue

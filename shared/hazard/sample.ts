@@ -81,8 +81,11 @@ export interface SampleSet {
   speedKmS: Float64Array
   rec: Float64Array
   counts: { highBurst: number; seafloor: number; sea: number }
-  /** With `sampling: 'encounter'`: b-plane points tried and hits kept (one per realisation); else null. */
-  encounter: { tries: number; hits: number } | null
+  /**
+   * With `sampling: 'encounter'`: b-plane points tried, hits kept (one per realisation) and the estimated share of the
+   * encounter's b-plane points that hit (EncounterSampler); else null.
+   */
+  encounter: { tries: number; hits: number; hitShare: number } | null
 }
 
 type StrengthModel = 'density' | 'log-uniform'
@@ -104,8 +107,8 @@ export function allocSamples(capacity: number): SampleSet {
  * field of every realisation is written, so S may be reused).
  * Impact point, entry angle and speed: by default from the corridor band (along-track Normal, cross-track uniform)
  * and the solution's speed and angle, drawn independently; with `sampling: 'encounter'` jointly from one hit of the
- * solution's encounter per realisation (EncounterSampler, shared/encounter/draw.ts: misses are drawn again, so every
- * realisation is an impact). Throws a RangeError when the encounter's hits are too rare to draw from.
+ * solution's encounter per realisation (EncounterSampler, shared/encounter/draw.ts: drawn conditional on impact, so
+ * every realisation is an impact). Throws a RangeError when the encounter's hits are too rare to draw from.
  */
 export function drawSamples(
   solution: OrbitSolution, n: number, seed: number, strengthModel: StrengthModel, S: SampleSet = allocSamples(n),
@@ -233,6 +236,6 @@ export function drawSamples(
     R[o + REC.mag] = eGround > 0 ? seismicMagnitude(eGround) : NaN
     S.flags[i] = flags
   }
-  S.encounter = enc ? { tries: enc.tries, hits: enc.hits } : null
+  S.encounter = enc ? { tries: enc.tries, hits: enc.hits, hitShare: enc.boxMass * enc.hits / Math.max(1, enc.tries) } : null
   return S
 }

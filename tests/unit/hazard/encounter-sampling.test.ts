@@ -3,7 +3,8 @@ import fc from 'fast-check'
 import { assessSolution, orbitSolutionSchema, HazardRng, type OrbitSolution, type SolutionEncounter } from '../../../shared/hazard/index'
 import { drawSamples } from '../../../shared/hazard/sample'
 import {
-  EncounterSampler, arrivalTimeS, captureRadiusKm, entryFromBPlane, findBPlanePoint, greenwichSiderealDeg, solutionFromEncounter,
+  EncounterSampler, arrivalTimeS, captureRadiusKm, erfc, normalMass, truncatedStandardNormal,
+  entryFromBPlane, findBPlanePoint, greenwichSiderealDeg, solutionFromEncounter,
   DEG, EARTH_RADIUS_KM, ESCAPE_SPEED_KMS, MIN_ENCOUNTER_HIT_SHARE,
 } from '../../../shared/encounter/index'
 import { applyEncounter, checkEncounters, engineSolution } from '../../../shared/scenario/encounter'
@@ -105,9 +106,10 @@ describe('drawing impacts from the encounter (sampling: encounter)', () => {
     let ks = 0
     angles.forEach((x, i) => { ks = Math.max(ks, Math.abs((i + 1) / angles.length - Math.sin(x * DEG) ** 2)) })
     expect(ks).toBeLessThan(1.63 / Math.sqrt(angles.length)) // Kolmogorov–Smirnov, 1 % critical value
-    // The share of tries that hit is the encounter's impact probability: ≈ b⊕²/2σ² for a flat Gaussian (Rayleigh law of |b|).
-    const share = S.encounter!.hits / S.encounter!.tries
-    expect(share).toBeCloseTo(1 - Math.exp(-(captureRadiusKm(17) ** 2) / (2 * 1e10)), 3)
+    // The estimated hit share is the encounter's impact probability: 1 − exp(−b⊕²/2σ²) for a circular Gaussian centred on
+    // the Earth (Rayleigh law of |b|), 0.35 % here.
+    const expected = 1 - Math.exp(-(captureRadiusKm(17) ** 2) / (2 * 1e10))
+    expect(Math.abs(S.encounter!.hitShare / expected - 1)).toBeLessThan(0.03)
   })
 
   it('draws every realisation from a hit: angle in (0, 90], speed sqrt(v∞² + v_esc²) ≥ 11.186 km/s, at the hit\'s own ground point', () => {
@@ -175,7 +177,7 @@ describe('drawing impacts from the encounter (sampling: encounter)', () => {
       vInfKmS: 12, radiant, timeUtc: T, nominal: { xiKm: 60_000, zetaKm: 0 }, sigmaAlongKm: 5000, sigmaAcrossKm: 100, lineAngleDeg: 0,
     }
     expect(() => drawSamples({ ...base, sampling: 'encounter', encounter: far }, 1000, 1, 'density')).toThrow(/too few/i)
-    // About 1 hit in 10 000 (the nominal 3.7 σ beyond the disk, along the line): the bounded tries run out.
+    // About 1 hit in 10 000 (the nominal 3.72 σ beyond the disk, along the line): refused before drawing.
     const rare = { ...far, nominal: { xiKm: captureRadiusKm(12) + 3.72 * 5000, zetaKm: 0 } }
     expect(solutionFromEncounter(rare, { samples: 200_000 }).impactProbability).toBeLessThan(MIN_ENCOUNTER_HIT_SHARE)
     expect(() => drawSamples({ ...base, sampling: 'encounter', encounter: rare }, 2000, 1, 'density')).toThrow(/too few/i)
@@ -189,6 +191,33 @@ describe('drawing impacts from the encounter (sampling: encounter)', () => {
     ])
     expect(issues.map(i => i.path.join('.'))).toEqual(expect.arrayContaining(['solutions.0.solution.sampling', 'solutions.1.solution.sampling']))
   })
+})
+
+describe('the truncated normal of the encounter draw (Robert 1995)', () => {
+  it('computes the normal mass from erfc as normal tables give it', () => {
+    // Standard normal table values (e.g. Abramowitz & Stegun 1964, table 26.1; from memory): Φ(1) = 0.8413447,
+    // Φ(2) = 0.9772499, Φ(3) = 0.9986501, and erfc(0.5) = 0.4795001.
+    expect(normalMass(-Infinity, 1)).toBeCloseTo(0.8413447, 6)
+    expect(normalMass(-Infinity, 2)).toBeCloseTo(0.9772499, 6)
+    expect(normalMass(3, Infinity)).toBeCloseTo(1 - 0.9986501, 7)
+    expect(erfc(0.5)).toBeCloseTo(0.4795001, 6)
+    expect(erfc(-0.5)).toBeCloseTo(2 - 0.4795001, 6)
+  })
+
+  it.each([[-1, 2], [-0.3, 0.4], [2, 2.3], [4, 9], [-9, -5], [0.5, 6], [-40, 40], [30, 30.5]])(
+    'draws N(0, 1) truncated to [%d, %d] with the exact distribution (Kolmogorov–Smirnov)', (a, b) => {
+      const rng = new HazardRng(17), n = 20_000, xs: number[] = []
+      for (let k = 0; k < n; k++) xs.push(truncatedStandardNormal(rng, a, b))
+      xs.sort((x, y) => x - y)
+      expect(xs[0]!).toBeGreaterThanOrEqual(a)
+      expect(xs.at(-1)!).toBeLessThanOrEqual(b)
+      // CDF of the truncated law: mass(a, x) / mass(a, b); far in the tail, where erfc underflows, its exponential limit.
+      const total = normalMass(a, b)
+      const cdf = total > 1e-300 ? (x: number) => normalMass(a, x) / total : (x: number) => 1 - Math.exp(-a * (x - a))
+      let ks = 0
+      xs.forEach((x, i) => { ks = Math.max(ks, Math.abs((i + 1) / n - cdf(x))) })
+      expect(ks).toBeLessThan(1.63 / Math.sqrt(n)) // 1 % critical value
+    })
 })
 
 describe('the corridor draw is unchanged by the option', () => {
