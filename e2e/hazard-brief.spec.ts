@@ -186,7 +186,7 @@ test('the brief on a projector in the dark theme', async ({ page }) => {
   await page.goto(`/brief/${id}?solution=s5-more-likely-than-not`)
   await briefReady(page)
   await expect(page.locator('html')).toHaveClass(/dark/)
-  await expect(page.getByTestId('figure-probability')).toContainText('62 %')
+  await expect(page.getByTestId('figure-probability')).toContainText('63 %')
   await shot(page, 'brief-projector-dark')
   await page.getByTestId('evolution-chart').scrollIntoViewIfNeeded()
   await page.waitForTimeout(300)

@@ -73,6 +73,21 @@ test('the orbit solution tab shows live headline figures that follow the edits',
   await expect(page.getByTestId('unsaved')).toBeVisible()
 })
 
+test('a solution computed from its encounter may draw its impacts from the approach geometry', async ({ page }) => {
+  await signIn(page, FACILITATOR)
+  await openFromLibrary(page, 'demo-ocean-impact')
+  await page.getByRole('tab', { name: /^Orbit solutions/ }).click()
+  await page.getByTestId('solution-list').getByRole('button', { name: /Solution 7/ }).click()
+  const select = page.getByLabel('Draw impacts from')
+  await expect(select).toHaveValue('corridor')
+  await select.selectOption('encounter')
+  await expect(page.getByTestId('unsaved')).toBeVisible()
+  const preview = page.getByTestId('solution-preview')
+  await expect(preview.getByTestId('figure-impact')).toHaveText('100 % (certain)')
+  await expect(preview.getByTestId('figure-energyMt')).toContainText(/\d.* Mt/)
+  await expect(preview.locator('[data-corridor="current"]')).toHaveAttribute('d', /^M[\d.]+/)
+})
+
 test('the server\'s verdicts show beside the field, and a save over someone else\'s asks for a reload', async ({ page, context }) => {
   await signIn(page, FACILITATOR)
   await openFromLibrary(page, 'demo-ocean-impact')

@@ -2,6 +2,7 @@ import { and, asc, eq } from 'drizzle-orm'
 import { assessmentHeadline, hasHazardFields } from '#shared/live/headline'
 import { PUBLISH_SAMPLES, solutionSeed } from '#shared/live/seed'
 import { DRILL, teamsAudience } from '#shared/live/visibility'
+import { engineSolution } from '#shared/scenario/encounter'
 import { type Published, publishedSolutions, rememberAssessment } from './assessments'
 import { injectDef, renderInject } from './injects'
 import { runTask } from '../workers/pool'
@@ -57,7 +58,7 @@ export async function publishSolution(exerciseId: string, key: string, opts: { a
   // The seed of the solution in its scenario: the library's brief shows the same figures.
   const seed = solutionSeed(exercise.scenario.key, key)
   // The model runs on a worker thread; the write below checks again that no one published meanwhile.
-  const assessment = await runTask('assess', { solution: entry.solution, sites: exercise.scenario.sites, samples: PUBLISH_SAMPLES, seed })
+  const assessment = await runTask('assess', { solution: engineSolution(entry), sites: exercise.scenario.sites, samples: PUBLISH_SAMPLES, seed })
   return liveWrite(exerciseId, (w) => {
     if (w.exercise.status === 'ended') throw exerciseEnded()
     if (isPublished(w.tx)) throw conflict('This solution was already published.')

@@ -11,5 +11,7 @@ export {
   encounterFrame, entryUnitInto, groundLonLat, arrivalTimeS, EARTH_ROTATION_RAD_S,
 } from './bplane'
 export type { Radiant, BPlanePoint, BPlaneEntry, BPlaneEntryInput, EncounterFrame, FindBPlaneInput } from './bplane'
+export { EncounterSampler, MIN_ENCOUNTER_HIT_SHARE, erfc, normalMass, truncatedStandardNormal } from './draw'
+export type { DrawEncounter, EncounterHit } from './draw'
 export { solutionFromEncounter, corridorFromHits, lineTrack, lineOfVariationsTrack, CORRIDOR_POINTS, MAX_SAMPLES } from './solution'
 export type { EncounterInput, EncounterOptions, EncounterSolution, EncounterSolutionPart, EncounterWarning } from './solution'

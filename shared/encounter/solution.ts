@@ -75,7 +75,7 @@ export const CORRIDOR_POINTS = 241
  * Turns the inertial entry vector tmp[0..2] of a body of impact parameter bKm into the Earth-fixed frame at its own
  * arrival time `timeUtc + τ(b) - τ(b_nominal)` (see arrivalTimeS): a rotation about the pole by -(GMST + ω Δt).
  */
-function earthFixedInto(f: EncounterFrame, tmp: Float64Array, bKm: number, tauNominalS: number, out: Float64Array, o: number): void {
+export function earthFixedInto(f: EncounterFrame, tmp: Float64Array, bKm: number, tauNominalS: number, out: Float64Array, o: number): void {
   const ang = f.gmstRad + EARTH_ROTATION_RAD_S * (arrivalTimeS(bKm, f.vInfKmS, f.rKm) - tauNominalS)
   const c = Math.cos(ang), sn = Math.sin(ang)
   out[o] = c * tmp[0]! + sn * tmp[1]!

@@ -9,6 +9,7 @@ import { seismicMagnitude } from './seismic'
 import { cavityDiameterSI, impactWaveSpeedMS, wavelengthGridPosition, OCEAN } from './ocean'
 import { SIZE_LAW_KM } from './size'
 import { DEG, J_PER_KT, J_PER_MT, WATER_DENSITY_KGM3 } from './units'
+import { EncounterSampler } from '../encounter/draw'
 
 /**
  * Bit flags of a realisation: impact point at sea, airburst, tsunami (the body or its debris reaches the sea
@@ -75,8 +76,16 @@ export interface SampleSet {
   flags: Uint8Array
   lon: Float64Array
   lat: Float64Array
+  /** Entry angle from the horizontal, degrees, and entry speed, km/s, of each realisation. */
+  angleDeg: Float64Array
+  speedKmS: Float64Array
   rec: Float64Array
   counts: { highBurst: number; seafloor: number; sea: number }
+  /**
+   * With `sampling: 'encounter'`: b-plane points tried, hits kept (one per realisation) and the estimated share of the
+   * encounter's b-plane points that hit (EncounterSampler); else null.
+   */
+  encounter: { tries: number; hits: number; hitShare: number } | null
 }
 
 type StrengthModel = 'density' | 'log-uniform'
@@ -87,8 +96,8 @@ export function allocSamples(capacity: number): SampleSet {
   return {
     n: 0, seaDepthM: 0,
     diameterM: f64(), massKg: f64(), energyMt: f64(), surfaceEnergyMt: f64(), airEnergyMt: f64(), burstAltM: f64(), cavityM: f64(),
-    flags: new Uint8Array(capacity), lon: f64(), lat: f64(), rec: new Float64Array(REC.size * capacity),
-    counts: { highBurst: 0, seafloor: 0, sea: 0 },
+    flags: new Uint8Array(capacity), lon: f64(), lat: f64(), angleDeg: f64(), speedKmS: f64(), rec: new Float64Array(REC.size * capacity),
+    counts: { highBurst: 0, seafloor: 0, sea: 0 }, encounter: null,
   }
 }
 
@@ -96,6 +105,10 @@ export function allocSamples(capacity: number): SampleSet {
  * Draws n realisations from an orbit solution and runs, for each, the steps of shared/hazard/README.md:
  * size, entry, blast scaling, fireball, seismic source and ocean cavity. Fills S (capacity >= n; every
  * field of every realisation is written, so S may be reused).
+ * Impact point, entry angle and speed: by default from the corridor band (along-track Normal, cross-track uniform)
+ * and the solution's speed and angle, drawn independently; with `sampling: 'encounter'` jointly from one hit of the
+ * solution's encounter per realisation (EncounterSampler, shared/encounter/draw.ts: drawn conditional on impact, so
+ * every realisation is an impact). Throws a RangeError when the encounter's hits are too rare to draw from.
  */
 export function drawSamples(
   solution: OrbitSolution, n: number, seed: number, strengthModel: StrengthModel, S: SampleSet = allocSamples(n),
@@ -104,6 +117,7 @@ export function drawSamples(
   S.seaDepthM = solution.waterDepthM > 0 ? solution.waterDepthM : ASSUMED_DEPTH_M
   const counts = { highBurst: 0, seafloor: 0, sea: 0 }
   S.counts = counts
+  S.encounter = null
   const rng = new HazardRng(seed)
   const scr = newEntryScratch()
   const c = solution.corridor
@@ -113,6 +127,9 @@ export function drawSamples(
   const v = solution.entrySpeedKmS
   const h = S.seaDepthM
   const R = S.rec
+  if (solution.sampling === 'encounter' && !solution.encounter) throw new RangeError('sampling \'encounter\' needs the solution\'s encounter')
+  const enc = solution.sampling === 'encounter' ? new EncounterSampler(solution.encounter!, n) : null
+  const vEnc = enc ? 1000 * enc.speedKmS : 0
   for (let i = 0; i < n; i++) {
     const H = H0 + sH * rng.normal()
     let p: number
@@ -125,13 +142,23 @@ export function drawSamples(
     const dens = solution.densityKgM3 ?? CLASS_DENSITY[cls === 'unknown' ? (p < 0.1 ? 'C' : 'S') : cls]
     const rho = rng.truncatedNormal(dens.mean, dens.sigma, DENSITY_RANGE_KGM3[0], DENSITY_RANGE_KGM3[1])
     const Y = strengthModel === 'density' ? strengthFromDensityPa(rho) : Math.exp(Math.LN10 * (5 + 2 * rng.uniform()))
-    const v0 = 1000 * rng.truncatedNormal(v.mean, v.sigma, 11.2, 72)
-    const a = solution.entryAngleDeg
-    const theta = (a ? rng.truncatedNormal(a.mean, a.sigma, 5, 90) : sampleShoemakerAngleDeg(rng)) * DEG
-    entryInto(scr, D, rho, v0, theta, Y)
     const o = REC.size * i
-    const alongM = geo.nominalAlongM + c.alongTrackSigmaKm * 1000 * rng.normal()
-    corridorPointInto(geo, alongM, (2 * rng.uniform() - 1) * c.halfWidthKm * 1000, R, o)
+    let v0: number, theta: number
+    if (enc) {
+      // Point, angle and speed of one hit of the encounter, jointly.
+      theta = enc.drawInto(rng, R, o)
+      v0 = vEnc
+    }
+    else {
+      v0 = 1000 * rng.truncatedNormal(v.mean, v.sigma, 11.2, 72)
+      const a = solution.entryAngleDeg
+      theta = (a ? rng.truncatedNormal(a.mean, a.sigma, 5, 90) : sampleShoemakerAngleDeg(rng)) * DEG
+      const alongM = geo.nominalAlongM + c.alongTrackSigmaKm * 1000 * rng.normal()
+      corridorPointInto(geo, alongM, (2 * rng.uniform() - 1) * c.halfWidthKm * 1000, R, o)
+    }
+    S.angleDeg[i] = theta / DEG
+    S.speedKmS[i] = v0 / 1000
+    entryInto(scr, D, rho, v0, theta, Y)
     const x = R[o]!, y = R[o + 1]!, z = R[o + 2]!
     const lon = Math.atan2(y, x) / DEG, lat = Math.asin(Math.max(-1, Math.min(1, z))) / DEG
     S.lon[i] = lon
@@ -209,5 +236,6 @@ export function drawSamples(
     R[o + REC.mag] = eGround > 0 ? seismicMagnitude(eGround) : NaN
     S.flags[i] = flags
   }
+  S.encounter = enc ? { tries: enc.tries, hits: enc.hits, hitShare: enc.boxMass * enc.hits / Math.max(1, enc.tries) } : null
   return S
 }

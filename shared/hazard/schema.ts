@@ -17,6 +17,27 @@ const meanSigma = (min: number, max: number, sigmaMax: number) => z.object({
 })
 
 /**
+ * The close-encounter geometry an orbit solution was computed from, as the hazard engine reads it when it draws
+ * impacts from the approach (`sampling: 'encounter'`): the radiant, v∞, the nominal body's arrival time and its
+ * b-plane point with the Gaussian uncertainty (σ along the line of variations, σ across, the line's angle). Axes and
+ * sources: shared/encounter/README.md. A scenario gives it as the solution entry's `encounter:` block.
+ */
+export const solutionEncounterSchema = z.object({
+  vInfKmS: z.number().min(1).max(70),
+  radiant: z.object({ raDeg: z.number().min(0).max(360), decDeg: z.number().min(-90).max(90) }),
+  timeUtc: z.iso.datetime({ offset: true }),
+  nominal: z.object({ xiKm: z.number().min(-400_000).max(400_000), zetaKm: z.number().min(-400_000).max(400_000) }),
+  sigmaAlongKm: z.number().min(0).max(1_000_000),
+  sigmaAcrossKm: z.number().min(0).max(100_000),
+  lineAngleDeg: z.number().min(-360).max(360),
+})
+export type SolutionEncounter = z.infer<typeof solutionEncounterSchema>
+
+/** Where the Monte Carlo takes each realisation's impact point, entry angle and speed from (see README, Sampling). */
+export const SOLUTION_SAMPLING = ['corridor', 'encounter'] as const
+export type SolutionSampling = typeof SOLUTION_SAMPLING[number]
+
+/**
  * What is known of the impactor at one scenario time: an orbit solution.
  * Units are in the field names; angles from the horizontal (90 = vertical).
  */
@@ -50,6 +71,18 @@ export const orbitSolutionSchema = z.object({
   }),
   /** Water depth at the nominal impact point, metres (0 on land). */
   waterDepthM: z.number().min(0).max(11000),
+  /**
+   * Where the Monte Carlo draws the impacts from: `corridor` (default) the risk corridor band with the speed and angle
+   * above; `encounter` b-plane points of `encounter` (hits only), each giving its own point, angle and speed.
+   */
+  sampling: z.enum(SOLUTION_SAMPLING).optional(),
+  /**
+   * The encounter the solution comes from; read only with `sampling: 'encounter'`. A scenario file gives it beside
+   * the solution (the entry's `encounter:`), and the engine's caller joins the two (shared/scenario/encounter.ts).
+   */
+  encounter: solutionEncounterSchema.optional(),
+}).refine(s => s.sampling !== 'encounter' || s.encounter !== undefined, {
+  path: ['sampling'], message: 'drawing impacts from the encounter needs the solution\'s encounter',
 })
 export type OrbitSolution = z.infer<typeof orbitSolutionSchema>
 export type OrbitSolutionInput = z.input<typeof orbitSolutionSchema>

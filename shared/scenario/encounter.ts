@@ -5,7 +5,7 @@
  * solution that disagrees with its own encounter, so that a file stays consistent. For training exercises only.
  */
 import { z } from 'zod'
-import { solutionFromEncounter } from '../encounter'
+import { solutionFromEncounter, MIN_ENCOUNTER_HIT_SHARE } from '../encounter'
 import type { EncounterSolution } from '../encounter'
 import type { OrbitSolution } from '../hazard/schema'
 import { scenarioTimeSchema } from './time'
@@ -130,6 +130,17 @@ export function applyEncounter<E extends { solution: OrbitSolution; encounter?: 
   return { ...entry, solution }
 }
 
+/**
+ * The orbit solution of an entry as the hazard engine takes it: with `sampling: 'encounter'` the entry's encounter
+ * geometry is joined to it (the engine draws impacts from it); otherwise the solution itself, unchanged, so that a
+ * corridor draw gets exactly the same input as before the option existed.
+ */
+export function engineSolution(entry: { solution: OrbitSolution; encounter?: ScenarioEncounter }): OrbitSolution {
+  if (entry.solution.sampling !== 'encounter' || !entry.encounter) return entry.solution
+  const { samples: _samples, seed: _seed, ...geometry } = entry.encounter
+  return { ...entry.solution, encounter: geometry }
+}
+
 /** A disagreement between a solution and its encounter, at a path into the scenario. */
 export interface EncounterIssue { path: Array<string | number>; message: string }
 
@@ -142,6 +153,12 @@ export function checkEncounters(solutions: ReadonlyArray<{ solution: OrbitSoluti
   const issues: EncounterIssue[] = []
   let drawn = 0
   solutions.forEach((entry, i) => {
+    if (entry.solution.sampling === 'encounter' && !entry.encounter) {
+      issues.push({
+        path: ['solutions', i, 'solution', 'sampling'],
+        message: 'impacts can be drawn from the approach geometry only when the solution has its encounter: give one or draw from the corridor',
+      })
+    }
     if (!entry.encounter) return
     drawn += entry.encounter.samples ?? DEFAULT_SAMPLES
     if (drawn > ENCOUNTER_SAMPLE_BUDGET) {
@@ -157,6 +174,12 @@ export function checkEncounters(solutions: ReadonlyArray<{ solution: OrbitSoluti
     catch (e) {
       issues.push({ path: ['solutions', i, 'encounter'], message: `the encounter cannot be computed: ${(e as Error).message}` })
       return
+    }
+    if (entry.solution.sampling === 'encounter' && r.impactProbability < MIN_ENCOUNTER_HIT_SHARE) {
+      issues.push({
+        path: [...path, 'sampling'],
+        message: `under ${MIN_ENCOUNTER_HIT_SHARE * 100} % of the encounter's b-plane points hit the Earth: too few to draw impacts from the approach geometry; draw them from the corridor`,
+      })
     }
     const p = entry.solution.impactProbability
     if (Math.abs(p - r.impactProbability) > ENCOUNTER_TOLERANCE.probability) {

@@ -48,13 +48,16 @@ export const phaseSchema = z.strictObject({
   description: text(2000).optional(),
 })
 
+// A scenario gives a solution's encounter beside it (the entry's `encounter:`), never inside it.
+const { encounter: _engineEncounter, ...solutionShape } = orbitSolutionSchema.shape
+
 export const solutionEntrySchema = z.strictObject({
   key: keySchema,
   label: text(200),
   /** Scenario time at which the drill publishes this solution. */
   releaseAt: scenarioTimeSchema,
   /** The estimate itself, as the hazard engine takes it (unknown keys rejected, not dropped). */
-  solution: z.strictObject(orbitSolutionSchema.shape),
+  solution: z.strictObject(solutionShape),
   /** The close encounter this solution is computed from (see encounter.ts): its figures must agree with it. */
   encounter: encounterSchema.optional(),
 })

@@ -4,7 +4,7 @@ import type { Assessment, Percentiles, SiteAssessment, ThresholdKey } from '../.
 import { THRESHOLDS } from '../../../shared/hazard/types'
 import type { SceneSite } from '../../../shared/geo'
 
-/** Solution 1 of the demo: a band across the Atlantic, 700 km half-width. */
+/** A band across the Atlantic, 700 km half-width (the demo's first solution before it was computed from an encounter). */
 export const WIDE = {
   path: [
     [-59.47, 7.75],
@@ -22,7 +22,7 @@ export const WIDE = {
   alongTrackSigmaKm: 2500,
 }
 
-/** Solution 7 of the demo: a point some 50 km off the coast, 2 km half-width. */
+/** A point some 50 km off the coast, 2 km half-width (the demo's last solution before it was computed from an encounter). */
 export const NARROW = {
   path: [[-9.74, 39.89], [-9.55, 39.95], [-9.36, 40.01]] as LonLat[],
   halfWidthKm: 2,

@@ -97,8 +97,10 @@ describe('the summary of a real engine run', () => {
       epoch: '2031-05-01T00:00:00Z', impactTime: '2034-09-14T03:12:00Z', impactProbability: 1,
       // The demo scenario's last solution (scenarios/demo-ocean-impact.yaml): a 150 m stony body 50 km off the coast.
       magnitude: { H: 21.1, sigma: 0.08 }, albedo: { min: 0.23, max: 0.28 }, taxonomicClass: 'S', densityKgM3: { mean: 2500, sigma: 250 },
-      entrySpeedKmS: { mean: 17.62, sigma: 0.01 }, entryAngleDeg: { mean: 37.6, sigma: 0.3 },
-      corridor: { path: [[-9.74, 39.89], [-9.55, 39.95], [-9.36, 40.01]], halfWidthKm: 2, nominal: [-9.55, 39.95], alongTrackSigmaKm: 2.5 },
+      entrySpeedKmS: { mean: 17.61, sigma: 0 }, entryAngleDeg: { mean: 37.6, sigma: 0 },
+      corridor: {
+        path: [[-11.5852, 39.2488], [-9.55, 39.95], [-7.6045, 40.6493]], halfWidthKm: 3.9, nominal: [-9.55, 39.95], alongTrackSigmaKm: 50.8,
+      },
       waterDepthM: 450,
     })
     const sites = [
