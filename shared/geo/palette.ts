@@ -52,8 +52,8 @@ export const MAP_PALETTES: Record<'light' | 'dark', MapPalette> = {
     points: { sea: '#74cdee', land: '#f2707a', air: '#f3f6f8' },
     ring: '#f2707a',
     footprint: {
-      overpressure: { fills: [['#9f2339', 0.35], ['#c22f45', 0.35], ['#e0475a', 0.4]], line: '#f2707a' },
-      thermal: { fills: [['#ab420b', 0.35], ['#d25d08', 0.35], ['#f07b10', 0.4]], line: '#ffbd5e' },
+      overpressure: { fills: [['#9f2339', 0.32], ['#c22f45', 0.25], ['#e0475a', 0.28]], line: '#f2707a' },
+      thermal: { fills: [['#ab420b', 0.32], ['#d25d08', 0.25], ['#f07b10', 0.28]], line: '#ffbd5e' },
     },
     site: { high: '#e0475a', moderate: '#fd9a2e', low: '#74cdee', none: '#0d131b', inland: '#9fb1c1', offshore: '#526c84' },
     siteEdge: '#f3f6f8',
@@ -72,12 +72,12 @@ export function footprintKind(key: string): 'overpressure' | 'thermal' {
  */
 export const FOOTPRINT_CLASSES: Record<'overpressure' | 'thermal', { fills: string[]; line: string; text: string }> = {
   overpressure: {
-    fills: ['fill-coral-400/[0.22] dark:fill-coral-700/[0.35]', 'fill-coral-500/30 dark:fill-coral-600/[0.35]', 'fill-coral-700/[0.36] dark:fill-coral-500/40'],
+    fills: ['fill-coral-400/[0.22] dark:fill-coral-700/[0.32]', 'fill-coral-500/30 dark:fill-coral-600/25', 'fill-coral-700/[0.36] dark:fill-coral-500/[0.28]'],
     line: 'stroke-coral-700 dark:stroke-coral-400',
     text: 'fill-coral-700 dark:fill-coral-400',
   },
   thermal: {
-    fills: ['fill-flare-300/30 dark:fill-flare-700/[0.35]', 'fill-flare-500/30 dark:fill-flare-600/[0.35]', 'fill-flare-700/[0.36] dark:fill-flare-500/40'],
+    fills: ['fill-flare-300/30 dark:fill-flare-700/[0.32]', 'fill-flare-500/30 dark:fill-flare-600/25', 'fill-flare-700/[0.36] dark:fill-flare-500/[0.28]'],
     line: 'stroke-flare-800 dark:stroke-flare-300',
     text: 'fill-flare-800 dark:fill-flare-300',
   },

@@ -57,6 +57,8 @@ export function renderMapSvg(o: RenderMapOptions): string {
       push(`<path class="footprint" data-footprint="${escapeXml(f.key)}" data-probability="${l.probability}" d="${l.d}" fill="${fill}" fill-opacity="${opacity}"/>`)
     })
   }
+  // The coast again over the shading, so it stays visible through the footprint.
+  if (scene.land && scene.footprints.length) push(`<path class="coast" d="${scene.land}" fill="none" stroke="${c.coast}" stroke-width="0.7"/>`)
   for (const k of scene.corridors) {
     if (k.current) push(`<path class="corridor corridor-current" data-corridor="current" d="${k.band}" fill="${c.corridor}" fill-opacity="0.22" stroke="${c.corridorEdge}" stroke-width="1.5"/>`)
     else push(`<path class="corridor corridor-earlier" data-corridor="earlier" d="${k.band}" fill="none" stroke="${c.earlier}" stroke-opacity="0.6" stroke-width="1" stroke-dasharray="5 4"/>`)

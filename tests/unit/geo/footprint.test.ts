@@ -73,6 +73,6 @@ describe('footprints on the map', () => {
     expect(words).toContain('Thin line: the same threshold for the middle case')
     expect(svg).toContain(DRILL_MARKING)
     const dark = renderMapSvg({ width: 800, height: 500, view: 'regional', corridors, theme: 'dark', rings: o.rings, footprints: o.footprints })
-    expect(dark).toContain('fill="#9f2339" fill-opacity="0.35"')
+    expect(dark).toContain('fill="#9f2339" fill-opacity="0.32"')
   })
 })
