@@ -13,7 +13,7 @@
 import { geoArea, geoContains } from 'd3-geo'
 import type { Feature, Polygon } from 'geojson'
 import type { LonLat } from '../hazard/schema'
-import type { Assessment, ThresholdKey } from '../hazard/types'
+import type { Assessment, SiteAssessment, ThresholdKey } from '../hazard/types'
 import { geodesicRing } from './rings'
 import { distanceKm, distanceToArcKm, EARTH_RADIUS_KM } from './sphere'
 
@@ -115,12 +115,33 @@ export interface ZoneFigures {
   exposedOutside: ZoneExposure | null
   /** How many sampled impacts the chances come from. */
   samples: number
+  /**
+   * Per threshold of the sites' figures (blast, heat, tsunami run-up), the people at the sites outside the zone
+   * expected to meet it if it strikes: the sum of population × the site's chance of exceeding it. Absent from zones
+   * recorded before it was kept.
+   */
+  peopleOutside?: Partial<Record<ThresholdKey, number>>
+}
+
+/** Thresholds whose people outside a zone are counted: the ground-damage ones the map shades, and the tsunami's. */
+export const ZONE_PEOPLE_KEYS: readonly ThresholdKey[] = ['windows', 'houseCollapse', 'multistoreyCollapse', 'burn2', 'runUp1m', 'runUp3m']
+
+/** The people at sites outside the zone expected to meet each threshold if it strikes (see ZoneFigures.peopleOutside). */
+export function peopleOutside(
+  shape: ZoneShape,
+  assessed: ReadonlyArray<Pick<SiteAssessment, 'siteId' | 'exceedance'>>,
+  sites: readonly ZoneSite[],
+): Partial<Record<ThresholdKey, number>> {
+  const outside = sites.filter(s => !zoneContains(shape, [s.lon, s.lat]))
+  const byId = new Map(assessed.map(a => [a.siteId, a]))
+  const expected = (k: ThresholdKey) => outside.reduce((sum, s) => sum + s.population * (byId.get(s.id)?.exceedance[k] ?? 0), 0)
+  return Object.fromEntries(ZONE_PEOPLE_KEYS.map(k => [k, Math.round(expected(k))]))
 }
 
 export function zoneFigures(
   shape: ZoneShape,
   solutionKey: string,
-  assessment: Pick<Assessment, 'impactPoints' | 'reach'> | null,
+  assessment: Pick<Assessment, 'impactPoints' | 'reach'> & Partial<Pick<Assessment, 'sites'>> | null,
   sites: readonly ZoneSite[],
 ): ZoneFigures {
   const inside = sitesInZone(shape, sites)
@@ -130,6 +151,7 @@ export function zoneFigures(
     population: inside.population,
     exposedOutside: assessment ? zoneExposure(shape, assessment) : null,
     samples: assessment?.reach?.radiiKm.length ?? 0,
+    ...(assessment?.sites ? { peopleOutside: peopleOutside(shape, assessment.sites, sites) } : {}),
   }
 }
 
@@ -189,7 +211,14 @@ export function zoneFiguresText(f: ZoneFigures, labelOf: (k: ThresholdKey) => st
   const inside = f.siteIds.length === 0
     ? 'No site inside'
     : `${f.siteIds.length} site${f.siteIds.length === 1 ? '' : 's'} inside (${fmtInt(f.population)} people)`
-  if (!f.exposedOutside) return `${inside}.`
-  const parts = Object.entries(f.exposedOutside).map(([k, p]) => `${labelOf(k as ThresholdKey)} ${zoneChanceText(p ?? 0)}`)
-  return `${inside}. If it strikes, chance the damage reaches beyond the zone (solution ${f.solutionKey}): ${parts.join(', ')}.`
+  const out = [`${inside}.`]
+  if (f.exposedOutside) {
+    const parts = Object.entries(f.exposedOutside).map(([k, p]) => `${labelOf(k as ThresholdKey)} ${zoneChanceText(p ?? 0)}`)
+    out.push(`If it strikes, chance the damage reaches beyond the zone (solution ${f.solutionKey}): ${parts.join(', ')}.`)
+  }
+  if (f.peopleOutside) {
+    const parts = Object.entries(f.peopleOutside).map(([k, n]) => `${labelOf(k as ThresholdKey)} ${fmtInt(n ?? 0)}`)
+    out.push(`People at sites outside it expected to meet each threshold if it strikes: ${parts.join(', ')}.`)
+  }
+  return out.join(' ')
 }

@@ -64,12 +64,17 @@ describe('protective-action zones', () => {
       expect(p).toBeGreaterThanOrEqual(0)
       expect(p).toBeLessThanOrEqual(1)
     }
+    // People at sites outside the zone expected to meet each threshold: blast, heat and the tsunami's run-up.
+    expect(Object.keys(figures.peopleOutside)).toEqual(expect.arrayContaining(['windows', 'burn2', 'runUp1m', 'runUp3m']))
     // A wider zone around the same centre leaves no more exposed.
     const wide = await cast.civil.client.post(url('/zones'), {
       kind: 'shelter', name: 'Coast strip', shape: { type: 'circle', centre: [town.lon, town.lat], radiusKm: 120 }, idempotencyKey: ikey(),
     })
     for (const [k, p] of Object.entries(wide.json.event.data.figures.exposedOutside as Record<string, number>)) {
       expect(p).toBeLessThanOrEqual((figures.exposedOutside as Record<string, number>)[k]!)
+    }
+    for (const [k, n] of Object.entries(wide.json.event.data.figures.peopleOutside as Record<string, number>)) {
+      expect(n).toBeLessThanOrEqual((figures.peopleOutside as Record<string, number>)[k]!)
     }
 
     const heard = await until(() => control.events.find(e => e.type === 'zone.drawn' && e.data.name === 'Ponta Ferrada seafront'), 5000, 'zone at control')

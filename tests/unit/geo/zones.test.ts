@@ -5,9 +5,11 @@ import type { LonLat } from '../../../shared/hazard/schema'
 import type { Assessment } from '../../../shared/hazard/types'
 import { destination, EARTH_RADIUS_KM } from '../../../shared/geo/sphere'
 import {
-  depthInsideKm, polygonProblem, sitesInZone, zoneAreaKm2, zoneContains, zoneExposure, zoneFigures, zoneOutline, type ZoneShape,
+  depthInsideKm, polygonProblem, sitesInZone, zoneAreaKm2, zoneContains, zoneExposure, zoneFigures, zoneOutline, ZONE_PEOPLE_KEYS,
+  type ZoneShape,
 } from '../../../shared/geo/zones'
 import { zoneSchema } from '../../../shared/schemas/live'
+import { assessSolution, orbitSolutionSchema, siteSchema } from '../../../shared/hazard/index'
 
 const DEG = Math.PI / 180
 const square = (lon: number, lat: number, half: number): LonLat[] =>
@@ -136,6 +138,61 @@ describe('what a zone leaves exposed', () => {
     expect(f.exposedOutside).toBeNull()
     expect(f.population).toBe(12)
     expect(f.siteIds).toEqual(['x'])
+  })
+})
+
+describe('people a zone leaves outside', () => {
+  // An engine run near the demo's last solution, with three coastal towns and one inland (invented).
+  const solution = orbitSolutionSchema.parse({
+    epoch: '2031-05-01T00:00:00Z', impactTime: '2031-09-08T04:17:26Z', impactProbability: 1,
+    magnitude: { H: 21.1, sigma: 0.08 }, albedo: { min: 0.23, max: 0.28 }, taxonomicClass: 'S', densityKgM3: { mean: 2500, sigma: 250 },
+    entrySpeedKmS: { mean: 17.61, sigma: 0 }, entryAngleDeg: { mean: 37.6, sigma: 0 },
+    corridor: {
+      path: [[-11.5852, 39.2488], [-9.55, 39.95], [-7.6045, 40.6493]], halfWidthKm: 3.9, nominal: [-9.55, 39.95], alongTrackSigmaKm: 50.8,
+    },
+    waterDepthM: 450,
+  })
+  const sites = [
+    siteSchema.parse({ id: 'a', name: 'A', lon: -8.83, lat: 40.14, population: 60000, offshoreDepthM: 25, beachSlopeDeg: 1.5, shelfWidthKm: 8 }),
+    siteSchema.parse({ id: 'b', name: 'B', lon: -8.93, lat: 39.92, population: 4700, offshoreDepthM: 30, beachSlopeDeg: 2, shelfWidthKm: 8 }),
+    siteSchema.parse({ id: 'c', name: 'C', lon: -9.02, lat: 39.76, population: 3100, offshoreDepthM: 35, beachSlopeDeg: 3, shelfWidthKm: 7 }),
+    siteSchema.parse({ id: 'd', name: 'D', lon: -8.78, lat: 39.7, population: 126000 }),
+  ]
+  const a = assessSolution(solution, sites, { samples: 2000, seed: 5 })
+
+  it('a zone far away leaves outside exactly the people the engine counts as exposed; one around every site leaves none', () => {
+    const far = zoneFigures({ type: 'circle', centre: [20, 0], radiusKm: 5 }, 's', a, sites).peopleOutside!
+    const all = zoneFigures({ type: 'circle', centre: [-8.9, 39.9], radiusKm: 60 }, 's', a, sites).peopleOutside!
+    for (const k of ZONE_PEOPLE_KEYS) {
+      expect(far[k]).toBe(Math.round(a.exposedPopulation[k]))
+      expect(all[k]).toBe(0)
+    }
+    // The tsunami is counted too: the coast is in its reach in this run.
+    expect(far.runUp1m).toBeGreaterThan(0)
+  })
+
+  it('splits the exposed people between inside and outside for any zone (property)', () => {
+    fc.assert(fc.property(
+      fc.double({ min: -9.6, max: -8.5, noNaN: true }), fc.double({ min: 39.5, max: 40.3, noNaN: true }),
+      fc.double({ min: 1, max: 60, noNaN: true }),
+      (lon, lat, radiusKm) => {
+        const shape: ZoneShape = { type: 'circle', centre: [lon, lat], radiusKm }
+        const out = zoneFigures(shape, 's', a, sites).peopleOutside!
+        const inside = sitesInZone(shape, sites).sites
+        for (const k of ZONE_PEOPLE_KEYS) {
+          const expectedInside = inside.reduce((n, s) => n + s.population * a.sites.find(x => x.siteId === s.id)!.exceedance[k], 0)
+          expect(Math.abs(out[k]! + expectedInside - a.exposedPopulation[k])).toBeLessThanOrEqual(0.5 + 1e-6)
+        }
+      },
+    ), { numRuns: 200 })
+  })
+
+  it('tells the reach of the damage from the assessment: a zone that holds the whole footprint leaves no chance of damage beyond it', () => {
+    const f = zoneFigures({ type: 'circle', centre: [-9.55, 39.95], radiusKm: 400 }, 's', a, sites)
+    expect(Object.values(f.exposedOutside!).every(p => p === 0)).toBe(true)
+    const tiny = zoneFigures({ type: 'circle', centre: [-9.55, 39.95], radiusKm: 0.5 }, 's', a, sites)
+    // Windows shatter tens of kilometres out in every realisation of a 150 m body: a 0.5 km zone cannot hold it.
+    expect(tiny.exposedOutside!.windows).toBe(1)
   })
 })
 
