@@ -1,8 +1,21 @@
 /** Corridors and sites shaped like the demo scenario (scenarios/demo-ocean-impact.yaml), and a hand-made assessment. */
-import type { LonLat } from '../../../shared/hazard/schema'
 import type { Assessment, Percentiles, SiteAssessment, ThresholdKey } from '../../../shared/hazard/types'
 import { THRESHOLDS } from '../../../shared/hazard/types'
 import type { SceneSite } from '../../../shared/geo'
+import { orbitSolutionSchema, type LonLat, type OrbitSolution } from '../../../shared/hazard/schema'
+
+/** The demo scenario's last solution as the engine takes it (scenarios/demo-ocean-impact.yaml): a 150 m stony body off the coast. */
+export function demoLastSolution(): OrbitSolution {
+  return orbitSolutionSchema.parse({
+    epoch: '2031-05-01T00:00:00Z', impactTime: '2031-09-08T04:17:26Z', impactProbability: 1,
+    magnitude: { H: 21.1, sigma: 0.08 }, albedo: { min: 0.23, max: 0.28 }, taxonomicClass: 'S', densityKgM3: { mean: 2500, sigma: 250 },
+    entrySpeedKmS: { mean: 17.61, sigma: 0 }, entryAngleDeg: { mean: 37.6, sigma: 0 },
+    corridor: {
+      path: [[-11.5852, 39.2488], [-9.55, 39.95], [-7.6045, 40.6493]], halfWidthKm: 3.9, nominal: [-9.55, 39.95], alongTrackSigmaKm: 50.8,
+    },
+    waterDepthM: 450,
+  })
+}
 
 /** A band across the Atlantic, 700 km half-width (the demo's first solution before it was computed from an encounter). */
 export const WIDE = {

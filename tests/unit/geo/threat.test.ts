@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { assessSolution, orbitSolutionSchema, siteSchema } from '../../../shared/hazard/index'
+import { assessSolution, siteSchema } from '../../../shared/hazard/index'
 import type { Assessment, Percentiles, SiteAssessment } from '../../../shared/hazard/types'
 import { bandFactor, coastRows, energyRows, heatRows, heatSourceText, heatText, threatSummary } from '../../../shared/geo/threat'
-import { surfaceAssessment } from './fixtures'
+import { demoLastSolution, surfaceAssessment } from './fixtures'
 
 const p = (p5: number, p50: number, p95: number): Percentiles => ({ p5, p50, p95 })
 const band = (low: number, high: number): SiteAssessment['tsunamiBand'] => ({
@@ -93,16 +93,8 @@ describe('energy and heat in words', () => {
 
 describe('the summary of a real engine run', () => {
   it('carries the band of every coastal site with the low law below the high law', () => {
-    const solution = orbitSolutionSchema.parse({
-      epoch: '2031-05-01T00:00:00Z', impactTime: '2034-09-14T03:12:00Z', impactProbability: 1,
-      // The demo scenario's last solution (scenarios/demo-ocean-impact.yaml): a 150 m stony body 50 km off the coast.
-      magnitude: { H: 21.1, sigma: 0.08 }, albedo: { min: 0.23, max: 0.28 }, taxonomicClass: 'S', densityKgM3: { mean: 2500, sigma: 250 },
-      entrySpeedKmS: { mean: 17.61, sigma: 0 }, entryAngleDeg: { mean: 37.6, sigma: 0 },
-      corridor: {
-        path: [[-11.5852, 39.2488], [-9.55, 39.95], [-7.6045, 40.6493]], halfWidthKm: 3.9, nominal: [-9.55, 39.95], alongTrackSigmaKm: 50.8,
-      },
-      waterDepthM: 450,
-    })
+    // The demo scenario's last solution: a 150 m stony body off the coast.
+    const solution = demoLastSolution()
     const sites = [
       siteSchema.parse({
         id: 'coast', name: 'Coast', lon: -8.83, lat: 40.14, population: 60000, offshoreDepthM: 25, beachSlopeDeg: 1.5, shelfWidthKm: 8,

@@ -9,7 +9,8 @@ import {
   type ZoneShape,
 } from '../../../shared/geo/zones'
 import { zoneSchema } from '../../../shared/schemas/live'
-import { assessSolution, orbitSolutionSchema, siteSchema } from '../../../shared/hazard/index'
+import { assessSolution, siteSchema } from '../../../shared/hazard/index'
+import { demoLastSolution } from './fixtures'
 
 const DEG = Math.PI / 180
 const square = (lon: number, lat: number, half: number): LonLat[] =>
@@ -143,15 +144,7 @@ describe('what a zone leaves exposed', () => {
 
 describe('people a zone leaves outside', () => {
   // An engine run near the demo's last solution, with three coastal towns and one inland (invented).
-  const solution = orbitSolutionSchema.parse({
-    epoch: '2031-05-01T00:00:00Z', impactTime: '2031-09-08T04:17:26Z', impactProbability: 1,
-    magnitude: { H: 21.1, sigma: 0.08 }, albedo: { min: 0.23, max: 0.28 }, taxonomicClass: 'S', densityKgM3: { mean: 2500, sigma: 250 },
-    entrySpeedKmS: { mean: 17.61, sigma: 0 }, entryAngleDeg: { mean: 37.6, sigma: 0 },
-    corridor: {
-      path: [[-11.5852, 39.2488], [-9.55, 39.95], [-7.6045, 40.6493]], halfWidthKm: 3.9, nominal: [-9.55, 39.95], alongTrackSigmaKm: 50.8,
-    },
-    waterDepthM: 450,
-  })
+  const solution = demoLastSolution()
   const sites = [
     siteSchema.parse({ id: 'a', name: 'A', lon: -8.83, lat: 40.14, population: 60000, offshoreDepthM: 25, beachSlopeDeg: 1.5, shelfWidthKm: 8 }),
     siteSchema.parse({ id: 'b', name: 'B', lon: -8.93, lat: 39.92, population: 4700, offshoreDepthM: 30, beachSlopeDeg: 2, shelfWidthKm: 8 }),
