@@ -11,6 +11,8 @@ import { drawSamples, allocSamples } from '../../shared/hazard/sample'
 import { MIN_ENCOUNTER_HIT_SHARE } from '../../shared/encounter/index'
 import { parseScenarioYaml } from '../../shared/scenario/index'
 import { engineSolution } from '../../shared/scenario/encounter'
+import { zoneFigures, type ZoneShape } from '../../shared/geo/zones'
+import { destination } from '../../shared/geo/sphere'
 
 const file = resolve(import.meta.dirname, '../../scenarios/demo-ocean-impact.yaml')
 const parsed = parseScenarioYaml(readFileSync(file, 'utf8'))
@@ -75,3 +77,20 @@ console.log(`drawSamples 20,000 realisations, corridor band / encounter (median,
 console.log(`  per solution: ${per.join(', ')}`)
 console.log(`assessSolution 20,000 samples x ${sites.length} sites, corridor band / encounter: ${bandAll.toFixed(1)} / ${encAll.toFixed(1)} ms `
   + `= ${(encAll / bandAll).toFixed(2)}×`)
+
+// A protective-action zone's figures against the final assessment (what a zone drawn in a room costs the server and
+// the page): a circle and a 60-corner polygon, 2,000 thinned realisations with their reach.
+{
+  const zoneMs = (shape: ZoneShape) => {
+    zoneFigures(shape, 'bench', a, sites)
+    return median(Array.from({ length: 9 }, () => {
+      const t = performance.now()
+      zoneFigures(shape, 'bench', a, sites)
+      return performance.now() - t
+    }))
+  }
+  const centre = a.impactPoints[0]!.slice(0, 2) as [number, number]
+  const ring = Array.from({ length: 60 }, (_, i) => destination(centre, i * 6, 40 + 10 * Math.sin(i)))
+  console.log(`zone figures (${a.reach?.radiiKm.length ?? 0} realisations): circle ${zoneMs({ type: 'circle', centre, radiusKm: 40 }).toFixed(1)} ms, `
+    + `60-corner polygon ${zoneMs({ type: 'polygon', ring }).toFixed(1)} ms (median)`)
+}
