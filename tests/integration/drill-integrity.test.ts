@@ -2,7 +2,7 @@
 // without the facilitator's say-so (before, its teams read "n/a (no orbit solution published yet)" and control was
 // not told), and when it is, they read "figures not yet available" in the project's own marking.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { closeSockets, ikey, newLiveExercise, type LiveCast } from '../support/live'
+import { closeSockets, demoScenario, ikey, newLiveExercise, type LiveCast } from '../support/live'
 import { findHazardFields } from '../../shared/scenario/fields'
 import { NO_SOLUTION_YET } from '../../shared/live/pending'
 import { PUBLISH_SAMPLES, solutionSeed } from '../../shared/live/seed'
@@ -14,9 +14,7 @@ const url = (p = '') => `/api/exercises/${cast.id}${p}`
 
 beforeAll(async () => {
   cast = await newLiveExercise('Integrity drill')
-  const list = (await cast.facilitator.client.get('/api/scenarios')).json as Array<{ id: string; key: string }>
-  const demo = list.find(s => s.key === 'demo-ocean-impact')!
-  scenario = (await cast.facilitator.client.get(`/api/scenarios/${demo.id}`)).json.document as Scenario
+  scenario = await demoScenario(cast.facilitator)
 }, 60_000)
 afterAll(() => closeSockets())
 

@@ -8,7 +8,7 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { baseUrl, Client } from '../support/client'
-import { closeSockets, ikey, liveSocket, newLiveExercise, ready, until, type LiveCast } from '../support/live'
+import { closeSockets, demoScenario, ikey, liveSocket, newLiveExercise, ready, until, type LiveCast } from '../support/live'
 import type { Scenario } from '../../shared/scenario/schema'
 
 let cast: LiveCast
@@ -19,9 +19,7 @@ const events = async (who: LiveCast['science']) =>
 
 beforeAll(async () => {
   cast = await newLiveExercise('Zones drill')
-  const list = (await cast.facilitator.client.get('/api/scenarios')).json as Array<{ id: string; key: string }>
-  const demo = list.find(s => s.key === 'demo-ocean-impact')!
-  scenario = (await cast.facilitator.client.get(`/api/scenarios/${demo.id}`)).json.document as Scenario
+  scenario = await demoScenario(cast.facilitator)
 }, 60_000)
 afterAll(() => closeSockets())
 

@@ -2,6 +2,7 @@
 // (so that the demo accounts' exercise lists stay as other tests expect), and socket clients.
 import { io, type Socket } from 'socket.io-client'
 import { as, baseUrl, Client, mailTo } from './client'
+import type { Scenario } from '../../shared/scenario/schema'
 
 /** Invites a person (optionally an admin, who may start exercises) and signs them in. */
 export async function newPerson(name: string, systemRole: 'admin' | 'member' = 'member') {
@@ -49,6 +50,13 @@ export async function newLiveExercise(title = 'Live test drill'): Promise<LiveCa
     Object.assign(cast, { [slot]: p })
   }
   return cast
+}
+
+/** The demo ocean-impact scenario's document, as a member of the library reads it. */
+export async function demoScenario(who: Person): Promise<Scenario> {
+  const list = (await who.client.get('/api/scenarios')).json as Array<{ id: string; key: string }>
+  const demo = list.find(s => s.key === 'demo-ocean-impact')!
+  return (await who.client.get(`/api/scenarios/${demo.id}`)).json.document as Scenario
 }
 
 export interface LiveMessage {
